@@ -1,0 +1,128 @@
+import { randomUUID } from 'node:crypto';
+import fs from 'node:fs';
+import path from 'node:path';
+import { fileURLToPath } from 'node:url';
+import express, { type Router } from 'express';
+import session from 'express-session';
+import connectPgSimple from 'connect-pg-simple';
+import helmet from 'helmet';
+import pg from 'pg';
+import type { Knex } from 'knex';
+import type { Config } from './config';
+import { publicConfig } from './config';
+import type { Logger } from './logger';
+import type { Mailer } from './mail/mailer';
+import { configurePassport } from './auth/passport';
+import { authRoutes, isCsrfExempt } from './auth/auth.routes';
+import { csrfProtection } from './http/middleware';
+import { errorHandler } from './http/error-handler';
+import { notFound } from './errors';
+import { teamRoutes } from './team/team.routes';
+import { sitesRoutes } from './sites/sites.routes';
+
+export interface AppDeps {
+  db: Knex;
+  config: Config;
+  mailer: Mailer;
+  logger: Logger;
+}
+
+const distDir = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '../dist');
+
+/** The Express app; it never listens (server/index.ts does, tests use supertest). */
+export function createApp(deps: AppDeps) {
+  const { db, config, logger } = deps;
+  const app = express();
+  app.set('trust proxy', 'loopback');
+  app.disable('x-powered-by');
+
+  app.use((req, res, next) => {
+    res.setHeader('x-request-id', randomUUID());
+    next();
+  });
+  app.use(
+    helmet({
+      contentSecurityPolicy: {
+        useDefaults: true,
+        directives: {
+          'default-src': ["'self'"],
+          'img-src': ["'self'", 'data:', 'blob:'],
+          'style-src': ["'self'", "'unsafe-inline'"],
+          'font-src': ["'self'", 'data:'],
+          'connect-src': ["'self'"],
+          'frame-ancestors': ["'none'"],
+          // Plain http on loopback must not be upgraded (helmet's default would).
+          'upgrade-insecure-requests': config.cookieSecure ? [] : null,
+        },
+      },
+      strictTransportSecurity: config.cookieSecure,
+    }),
+  );
+
+  // Routes that need the raw body (webhook signatures) are mounted here, before the JSON parser.
+  for (const r of rawBodyRouters(deps)) app.use(r);
+
+  app.use(express.json({ limit: '1mb' }));
+
+  const PgStore = connectPgSimple(session);
+  const sessionPool = new pg.Pool({ connectionString: config.DATABASE_URL, max: 5 });
+  const sessionStore = new PgStore({ pool: sessionPool, tableName: 'session', createTableIfMissing: false, pruneSessionInterval: 60 * 15 });
+  app.locals.shutdown = async () => {
+    sessionStore.close();
+    await sessionPool.end();
+  };
+  app.use(
+    session({
+      name: 'tt.sid',
+      store: sessionStore,
+      secret: config.SESSION_SECRET,
+      resave: false,
+      saveUninitialized: false,
+      rolling: true,
+      cookie: { httpOnly: true, sameSite: 'lax', secure: config.cookieSecure, maxAge: 1000 * 60 * 60 * 12 },
+    }),
+  );
+  const passport = configurePassport(db);
+  app.use(passport.initialize());
+  app.use(passport.session());
+  app.use(csrfProtection(isCsrfExempt));
+
+  app.get('/api/health', async (_req, res) => {
+    try {
+      await db.raw('select 1');
+      res.json({ ok: true, db: 'up' });
+    } catch {
+      res.status(503).json({ ok: false, db: 'down' });
+    }
+  });
+  app.get('/api/config', (_req, res) => {
+    res.json(publicConfig(config));
+  });
+
+  for (const r of apiRouters(deps, passport)) app.use(r);
+
+  app.use('/api', () => {
+    throw notFound('That API route');
+  });
+
+  if (fs.existsSync(path.join(distDir, 'index.html'))) {
+    app.use(express.static(distDir, { index: false, maxAge: '1h' }));
+    app.get('/{*splat}', (_req, res) => {
+      res.setHeader('cache-control', 'no-cache');
+      res.sendFile(path.join(distDir, 'index.html'));
+    });
+  }
+
+  app.use(errorHandler(logger));
+  return app;
+}
+
+/** Every domain's router, each defining full /api paths (the route table test walks them). */
+function apiRouters(deps: AppDeps, passport: ReturnType<typeof configurePassport>): Router[] {
+  return [authRoutes(deps, passport), teamRoutes(deps), sitesRoutes(deps)];
+}
+
+function rawBodyRouters(_deps: AppDeps): Router[] {
+  return [];
+}
+

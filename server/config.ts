@@ -1,0 +1,50 @@
+import { z } from 'zod';
+
+const port = z.coerce.number().int().min(0).max(65535);
+
+const schema = z.object({
+  NODE_ENV: z.enum(['development', 'production', 'test']).default('development'),
+  HOST: z.string().default('127.0.0.1'),
+  PORT: port.default(3000),
+  APP_URL: z.url().default('http://127.0.0.1:3000'),
+  DATABASE_URL: z.string().regex(/^postgres(ql)?:\/\//, 'must be a postgres:// URL').default('postgres://app@127.0.0.1:54329/tamp'),
+  SESSION_SECRET: z.string().min(16, 'must be at least 16 characters').default('dev-only-session-secret-change-me'),
+  SMTP_HOST: z.string().default('127.0.0.1'),
+  SMTP_PORT: port.default(1025),
+  MAIL_FROM: z.string().default('Tamp & Tally <no-reply@tamp-and-tally.test>'),
+  DEV_MAILBOX_URL: z.union([z.url(), z.literal('')]).default('http://127.0.0.1:8025'),
+  STRIPE_SECRET_KEY: z.string().regex(/^sk_(test|live)_/, 'must start with sk_test_ or sk_live_').default('sk_test_tamp_and_tally_local'),
+  STRIPE_API_HOST: z.string().default('127.0.0.1'),
+  STRIPE_API_PORT: port.default(12111),
+  STRIPE_API_PROTOCOL: z.enum(['http', 'https']).default('http'),
+  STRIPE_WEBHOOK_SECRET: z.string().regex(/^whsec_/, 'must start with whsec_').default('whsec_tamp_and_tally_local_secret'),
+  UPLOAD_DIR: z.string().default('.data/uploads'),
+  UPLOAD_MAX_BYTES: z.coerce.number().int().positive().default(10 * 1024 * 1024),
+  LOG_LEVEL: z.enum(['fatal', 'error', 'warn', 'info', 'debug', 'trace', 'silent']).default('info'),
+  LOGIN_MAX_FAILURES: z.coerce.number().int().positive().default(5),
+  LOGIN_MAX_FAILURES_PER_ADDRESS: z.coerce.number().int().positive().default(20),
+  LOGIN_WINDOW_MINUTES: z.coerce.number().int().positive().default(15),
+});
+
+export type Config = z.infer<typeof schema> & { cookieSecure: boolean; paymentsTestMode: boolean };
+
+export class ConfigError extends Error {}
+
+/** Parses the environment; a bad value throws naming the variable. */
+export function loadConfig(env: Record<string, string | undefined> = process.env): Config {
+  const parsed = schema.safeParse(env);
+  if (!parsed.success) {
+    const lines = parsed.error.issues.map((i) => `  ${i.path.join('.')}: ${i.message}`);
+    throw new ConfigError(`Invalid configuration:\n${lines.join('\n')}`);
+  }
+  const c = parsed.data;
+  if (c.NODE_ENV === 'production' && c.SESSION_SECRET === schema.shape.SESSION_SECRET.parse(undefined)) {
+    throw new ConfigError('Invalid configuration:\n  SESSION_SECRET: must be set in production');
+  }
+  return { ...c, cookieSecure: c.APP_URL.startsWith('https:'), paymentsTestMode: c.STRIPE_SECRET_KEY.startsWith('sk_test_') };
+}
+
+/** The explicit list of configuration that reaches the browser. */
+export function publicConfig(c: Config) {
+  return { paymentsTestMode: c.paymentsTestMode, devMailboxUrl: c.NODE_ENV === 'production' ? null : c.DEV_MAILBOX_URL || null };
+}
