@@ -202,6 +202,15 @@ export function priceFigures(price: DecimalInput, cost: DecimalInput, policy: Pr
   return writePriceFigures(exactPriceFigures(price, cost, parsePolicy(policy, currency)), currency);
 }
 
+/**
+ * Sales tax added at the till on a tax-exclusive price: price × rate ÷ 100, to the currency's
+ * minor unit, halves up. Massachusetts DOR (meals tax, M.G.L. c.64H §4) rounds the same way:
+ * $4.56 at 6.25 % = $0.285 → $0.29. Other places round differently: check local rules.
+ */
+export function taxOnTop(price: DecimalInput, taxRatePct: DecimalInput, currency: string): string {
+  return writeMoney(dec(price).times(dec(taxRatePct)).div(HUNDRED), currency);
+}
+
 function asParsed(policy: PricingPolicy | ParsedPolicy, currency?: string): ParsedPolicy {
   if ('margin' in policy) return policy;
   if (currency === undefined) throw new TypeError('A currency is needed with an unparsed policy.');
