@@ -59,7 +59,7 @@ describe.each(CASES)('$method $path', (c) => {
     const agent = s ? s.agent : request(ctx.app);
     let req = agent[c.method](url);
     if (s && c.method !== 'get') req = req.set('X-CSRF-Token', s.csrf);
-    if (c.send) req = await c.send(req, fixture, actor);
+    if (c.send) req = c.send(req, fixture, actor);
     else if (c.body) req = req.send(c.body(fixture, actor) as object);
     const res = await req;
     expect(res.status, JSON.stringify(res.body)).toBe(expected);

@@ -1,14 +1,16 @@
 import type { TestProject } from 'vitest/node';
 import { startThrowawayCluster } from '../../scripts/lib/postgres.mjs';
-import { createDb, migrateLatest } from '../../server/db/knex';
+import { createDb, migrateLatest, runSeeds } from '../../server/db/knex';
 
 declare module 'vitest' {
   export interface ProvidedContext {
     databaseUrl: string;
+    /** A second database holding the demo seed, for the browser journeys. */
+    e2eDatabaseUrl: string;
   }
 }
 
-/** One throwaway cluster for the whole run, migrated once; always stopped. */
+/** One throwaway cluster for the whole run, migrated once (and a seeded copy for browser tests); always stopped. */
 export default async function setup(project: TestProject) {
   const cluster = await startThrowawayCluster();
   const stop = () => cluster.stop();
@@ -23,6 +25,13 @@ export default async function setup(project: TestProject) {
     await migrateLatest(db);
     await db.destroy();
     project.provide('databaseUrl', url);
+    cluster.createDatabase('tamp_e2e');
+    const e2eUrl = cluster.urlFor('tamp_e2e');
+    const e2e = createDb(e2eUrl);
+    await migrateLatest(e2e);
+    await runSeeds(e2e);
+    await e2e.destroy();
+    project.provide('e2eDatabaseUrl', e2eUrl);
   } catch (err) {
     stop();
     throw err;

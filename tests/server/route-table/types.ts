@@ -28,7 +28,7 @@ export interface RouteCase {
   /** The call may end or replace the session (logout, sign-up): use a fresh one for it. */
   ownSession?: boolean;
   /** For routes that take a raw body or multipart: send it yourself. */
-  send?: (req: Test, f: RouteFixture, actor: Actor) => Test | Promise<Test>;
+  send?: (req: Test, f: RouteFixture, actor: Actor) => Test;
 }
 
 /** Shorthand: status for the four roles of this business, anonymous and other. */
