@@ -1,0 +1,40 @@
+import { matchPath } from 'react-router-dom';
+import { roles, type Role } from '../lib/api-types';
+import { paths } from '../lib/paths';
+
+/**
+ * The app's sections, in menu order, with the roles that may see them. The side
+ * navigation, the Home page's list and the role check on each page all read
+ * this list: adding a section is one line here plus its route in router.tsx.
+ */
+export interface NavEntry {
+  label: string;
+  path: string;
+  href: () => string;
+  roles: readonly Role[];
+  /** One line for the Home page: what someone does there. */
+  does: string;
+}
+
+const everyone = roles;
+
+function entry(route: { path: string; href: () => string }, label: string, who: readonly Role[], does: string): NavEntry {
+  return { label, path: route.path, href: route.href, roles: who, does };
+}
+
+export const navigation: readonly NavEntry[] = [
+  entry(paths.home, 'Home', everyone, 'See what you can do here.'),
+  entry(paths.team, 'Team', ['owner'], 'Invite people, choose their roles and remove access.'),
+  entry(paths.settings, 'Settings', ['owner'], 'Business name, country, currency, tax on menu prices and your sites.'),
+];
+
+export function entriesFor(role: Role): NavEntry[] {
+  return navigation.filter((e) => e.roles.includes(role));
+}
+
+/** The section a URL belongs to: the longest matching entry path ('/' only matches itself). */
+export function entryForPath(pathname: string): NavEntry | undefined {
+  return [...navigation]
+    .sort((a, b) => b.path.length - a.path.length)
+    .find((e) => matchPath({ path: e.path, end: e.path === '/' }, pathname));
+}

@@ -1,0 +1,44 @@
+import { createBrowserRouter } from 'react-router-dom';
+import { paths } from '../lib/paths';
+import { AppLayout } from './layout/app-layout';
+import { AuthLayout } from './layout/auth-layout';
+import { RouteError } from './routes/route-error';
+import { AcceptInviteRoute } from './routes/accept-invite';
+import { ForgotPasswordRoute } from './routes/forgot-password';
+import { GettingStartedRoute } from './routes/getting-started';
+import { HomeRoute } from './routes/home';
+import { NotFoundRoute } from './routes/not-found';
+import { ResetPasswordRoute } from './routes/reset-password';
+import { SettingsRoute } from './routes/settings';
+import { SignInRoute } from './routes/sign-in';
+import { SignUpRoute } from './routes/sign-up';
+import { TeamRoute } from './routes/team';
+
+export const router = createBrowserRouter([
+  {
+    errorElement: <RouteError />,
+    children: [
+      {
+        element: <AuthLayout />,
+        children: [
+          { path: paths.signIn.path, element: <SignInRoute /> },
+          { path: paths.signUp.path, element: <SignUpRoute /> },
+          { path: paths.forgotPassword.path, element: <ForgotPasswordRoute /> },
+          { path: paths.resetPassword.path, element: <ResetPasswordRoute /> },
+          { path: paths.acceptInvite.path, element: <AcceptInviteRoute /> },
+        ],
+      },
+      {
+        // Signed-in pages: the layout checks the session and each section's roles.
+        element: <AppLayout />,
+        children: [
+          { path: paths.home.path, element: <HomeRoute /> },
+          { path: paths.gettingStarted.path, element: <GettingStartedRoute /> },
+          { path: paths.team.path, element: <TeamRoute /> },
+          { path: paths.settings.path, element: <SettingsRoute /> },
+          { path: '*', element: <NotFoundRoute /> },
+        ],
+      },
+    ],
+  },
+]);

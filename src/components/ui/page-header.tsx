@@ -1,0 +1,24 @@
+import type { ReactNode } from 'react';
+import { usePageTitle } from '../../lib/use-page-title';
+
+interface PageHeaderProps {
+  title: string;
+  /** One line on what the page is for. */
+  description?: ReactNode;
+  /** The page's main action, shown top right. */
+  action?: ReactNode;
+}
+
+/** The page's title (also the browser tab's) and its main action at the top right. */
+export function PageHeader({ title, description, action }: PageHeaderProps) {
+  usePageTitle(title);
+  return (
+    <div className="mb-6 flex flex-wrap items-start justify-between gap-4">
+      <div className="min-w-0">
+        <h1 className="text-2xl font-bold text-ink">{title}</h1>
+        {description && <p className="mt-1 max-w-prose text-muted">{description}</p>}
+      </div>
+      {action && <div className="shrink-0 print:hidden">{action}</div>}
+    </div>
+  );
+}

@@ -1,0 +1,72 @@
+import { useState } from 'react';
+import { useForm } from 'react-hook-form';
+import { zodResolver } from '@hookform/resolvers/zod';
+import type { z } from 'zod';
+import { Button } from '../../../components/ui/button';
+import { ErrorState } from '../../../components/ui/error-state';
+import { Field } from '../../../components/ui/field';
+import { FormMessage } from '../../../components/ui/form-message';
+import { Input, Select } from '../../../components/ui/input';
+import { CountryOptions, CurrencyOptions } from '../../../components/ui/region-options';
+import { SkeletonRows } from '../../../components/ui/skeleton';
+import { TaxModeField } from '../../../components/ui/tax-mode-field';
+import { useToast } from '../../../components/ui/toast';
+import type { Business } from '../../../lib/api-types';
+import { applyServerErrors } from '../../../lib/form-errors';
+import { useBusiness } from '../api/get-business';
+import { useUpdateBusiness } from '../api/update-business';
+import { businessSchema } from '../schemas';
+
+type Schema = typeof businessSchema;
+
+function Form({ business }: { business: Business }) {
+  const update = useUpdateBusiness();
+  const { notify } = useToast();
+  const [formError, setFormError] = useState<string | null>(null);
+  const { register, handleSubmit, setError, formState: { errors, isDirty } } = useForm<z.input<Schema>, unknown, z.output<Schema>>({
+    resolver: zodResolver(businessSchema),
+    values: { name: business.name, country: business.country, currency: business.currency, taxMode: business.taxMode },
+  });
+
+  const onSubmit = handleSubmit((values) => {
+    setFormError(null);
+    update.mutate(values, {
+      onSuccess: () => notify('Business details saved.'),
+      onError: (err) => setFormError(applyServerErrors(err, setError, ['name', 'country', 'currency', 'taxMode'])),
+    });
+  });
+
+  return (
+    <form onSubmit={onSubmit} noValidate className="flex flex-col gap-4">
+      <FormMessage>{formError}</FormMessage>
+      <Field label="Business name" error={errors.name?.message}>
+        <Input autoComplete="organization" {...register('name')} />
+      </Field>
+      <div className="grid gap-4 sm:grid-cols-2">
+        <Field label="Country" error={errors.country?.message}>
+          <Select {...register('country')}>
+            <CountryOptions />
+          </Select>
+        </Field>
+        <Field label="Currency" hint="Changing it does not convert prices already entered." error={errors.currency?.message}>
+          <Select {...register('currency')}>
+            <CurrencyOptions />
+          </Select>
+        </Field>
+      </div>
+      <TaxModeField field={register('taxMode')} error={errors.taxMode?.message} />
+      <div>
+        <Button type="submit" busy={update.isPending} disabled={!isDirty}>
+          Save business details
+        </Button>
+      </div>
+    </form>
+  );
+}
+
+export function BusinessForm() {
+  const business = useBusiness();
+  if (business.isPending) return <SkeletonRows rows={3} label="Loading the business details" />;
+  if (business.isError) return <ErrorState error={business.error} onRetry={() => business.refetch()} />;
+  return <Form business={business.data} />;
+}

@@ -1,0 +1,52 @@
+/**
+ * Every URL the client builds, in one place. `path` is the router pattern,
+ * `href(...)` builds a link to it. `api` holds the server endpoints.
+ */
+
+function withQuery(base: string, query: Record<string, string | undefined>): string {
+  const params = new URLSearchParams();
+  for (const [key, value] of Object.entries(query)) if (value) params.set(key, value);
+  const qs = params.toString();
+  return qs ? `${base}?${qs}` : base;
+}
+
+export const paths = {
+  home: { path: '/', href: () => '/' },
+  signIn: { path: '/sign-in', href: (next?: string) => withQuery('/sign-in', { next }) },
+  signUp: { path: '/sign-up', href: () => '/sign-up' },
+  forgotPassword: { path: '/forgot-password', href: () => '/forgot-password' },
+  resetPassword: { path: '/reset-password', href: (token?: string) => withQuery('/reset-password', { token }) },
+  acceptInvite: { path: '/accept-invite', href: (token?: string) => withQuery('/accept-invite', { token }) },
+  gettingStarted: { path: '/getting-started', href: () => '/getting-started' },
+  team: { path: '/team', href: () => '/team' },
+  settings: { path: '/settings', href: () => '/settings' },
+  // Pages other engineers are building; until they land these show the 404 page.
+  cupSizes: { path: '/settings/cup-sizes', href: () => '/settings/cup-sizes' },
+  suppliers: { path: '/suppliers', href: () => '/suppliers' },
+  drinks: { path: '/drinks', href: () => '/drinks' },
+
+  api: {
+    me: () => '/api/auth/me',
+    login: () => '/api/auth/login',
+    logout: () => '/api/auth/logout',
+    signup: () => '/api/auth/signup',
+    resetRequest: () => '/api/auth/password-reset/request',
+    resetComplete: () => '/api/auth/password-reset/complete',
+    invitation: (token: string) => `/api/invitations/${encodeURIComponent(token)}`,
+    acceptInvitation: (token: string) => `/api/invitations/${encodeURIComponent(token)}/accept`,
+    team: () => '/api/team',
+    teamInvitations: () => '/api/team/invitations',
+    teamInvitation: (id: string) => `/api/team/invitations/${encodeURIComponent(id)}`,
+    teamMember: (id: string) => `/api/team/members/${encodeURIComponent(id)}`,
+    sites: () => '/api/sites',
+    site: (id: string) => `/api/sites/${encodeURIComponent(id)}`,
+    business: () => '/api/business',
+    config: () => '/api/config',
+  },
+} as const;
+
+/** Only same-site paths may be used as a post-sign-in destination. */
+export function safeNext(next: string | null | undefined): string {
+  if (next && next.startsWith('/') && !next.startsWith('//') && !next.startsWith('/\\')) return next;
+  return paths.home.href();
+}
