@@ -1,8 +1,12 @@
+import fs from 'node:fs';
 import { loadConfig, ConfigError } from './config';
 import { createDb } from './db/knex';
 import { createLogger } from './logger';
 import { createMailer } from './mail/mailer';
 import { createApp } from './app';
+
+// A local .env (see .env.example) fills in what the shell did not set.
+if (fs.existsSync('.env')) process.loadEnvFile('.env');
 
 let config;
 try {
