@@ -10,14 +10,22 @@ import {
   type IngredientInput,
   type LineInput,
   type PreparationInput,
+  type SizeInput,
 } from '../../src/shared/costing';
 import { D } from '../../src/shared/decimal';
 import { writeMoney } from '../../src/shared/money';
 import { exampleRequest } from './example-request';
 
-/** A deep copy to change one field of the example. */
-function example(change: (r: CostPreviewRequest & { ingredients: IngredientInput[]; preparations: PreparationInput[] }) => void): CostPreviewRequest {
-  const r = structuredClone(exampleRequest) as CostPreviewRequest & { ingredients: IngredientInput[]; preparations: PreparationInput[] };
+/** The request with every list writable, to change one field of a copy. */
+type Editable = Omit<CostPreviewRequest, 'ingredients' | 'preparations' | 'sizes'> & {
+  ingredients: IngredientInput[];
+  preparations: (Omit<PreparationInput, 'lines'> & { lines: LineInput[] })[];
+  sizes: (Omit<SizeInput, 'lines'> & { lines: LineInput[] })[];
+};
+
+/** A deep copy of the example with one change. */
+function example(change: (r: Editable) => void): CostPreviewRequest {
+  const r = structuredClone(exampleRequest) as Editable;
   change(r);
   return r;
 }
