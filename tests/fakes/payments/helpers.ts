@@ -23,10 +23,13 @@ export async function rejection(promise: Promise<unknown>): Promise<Stripe.error
   throw new Error('expected the call to fail');
 }
 
-/** Records the status of every HTTP answer the SDK received. */
-export function statuses(stripe: Stripe): number[] {
-  const seen: number[] = [];
-  stripe.on('response', (e: Stripe.ResponseEvent) => seen.push(e.status));
+/**
+ * Records the idempotency key of every attempt the SDK sends. (Its 'response'
+ * event fires only for the answer it finally keeps, not for retried ones.)
+ */
+export function attempts(stripe: Stripe): (string | undefined)[] {
+  const seen: (string | undefined)[] = [];
+  stripe.on('request', (e: Stripe.RequestEvent) => seen.push(e.idempotency_key));
   return seen;
 }
 
