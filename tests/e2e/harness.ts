@@ -74,6 +74,8 @@ export async function serveDemo(): Promise<Served> {
       return page;
     },
     async signIn(page, email) {
+      // Pages share one browser profile: sign in from a clean slate.
+      await browser.clearCookies();
       await page.goto(`${url}/sign-in`);
       await page.getByLabel('E-mail').fill(email);
       await page.getByLabel('Password').fill(DEMO_PASSWORD);
