@@ -43,7 +43,9 @@ export function roundHalfUp(value: DecimalInput, places: number): Dec {
 
 /** {@link roundHalfUp} written with exactly `places` decimals, e.g. "0.7102", "75.30". */
 export function writeFixed(value: DecimalInput, places: number): string {
-  return snap(dec(value)).toFixed(places, D.ROUND_HALF_UP);
+  const rounded = snap(dec(value)).toDecimalPlaces(places, D.ROUND_HALF_UP);
+  // decimal.js keeps the sign of a negative that rounds to zero ("-0.00"); a figure never shows it.
+  return (rounded.isZero() ? rounded.abs() : rounded).toFixed(places);
 }
 
 /** A money amount written to the currency's minor units, halves up: "2.88" GBP, "288" JPY. */

@@ -55,7 +55,7 @@ export function AppLayout() {
         <div className="mx-auto flex max-w-7xl items-center gap-3 px-4 py-2">
           <button
             type="button"
-            className={cx('rounded-md border border-rule px-3 py-1.5 text-sm font-medium text-ink md:hidden', focusRing)}
+            className={cx('whitespace-nowrap rounded-md border border-rule px-3 py-1.5 text-sm font-medium text-ink md:hidden', focusRing)}
             aria-expanded={menuOpen}
             aria-controls="phone-nav"
             onClick={() => setMenuOpen((o) => !o)}
@@ -72,13 +72,18 @@ export function AppLayout() {
             {businessName}
           </p>
           <div className="ml-auto flex items-center gap-3">
-            <SiteSwitcher businessId={user.businessId} />
+            <div className="hidden sm:block">
+              <SiteSwitcher businessId={user.businessId} />
+            </div>
             <UserMenu user={user} />
           </div>
         </div>
         {menuOpen && (
           <nav id="phone-nav" aria-label="Sections" className="border-t border-rule px-4 py-3 md:hidden">
-            <p className="mb-2 truncate text-sm text-muted sm:hidden">{businessName}</p>
+            <div className="mb-3 flex flex-col gap-2 border-b border-rule pb-3 sm:hidden">
+              <p className="truncate font-medium text-ink">{businessName}</p>
+              <SiteSwitcher businessId={user.businessId} />
+            </div>
             <SideNav role={user.role} onNavigate={() => setMenuOpen(false)} />
           </nav>
         )}

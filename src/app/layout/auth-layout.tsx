@@ -9,7 +9,7 @@ export function AuthLayout() {
       <Link to={paths.home.href()} className={`mb-8 rounded-sm text-2xl font-bold text-ink no-underline ${focusRing}`}>
         Tamp <span className="text-copper">&amp;</span> Tally
       </Link>
-      <main id="main" className="w-full max-w-md">
+      <main id="main" className="w-full max-w-xl">
         <Outlet />
       </main>
     </div>

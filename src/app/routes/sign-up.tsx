@@ -9,6 +9,7 @@ export function SignUpRoute() {
   return (
     <AuthCard
       title="Set up your business"
+      wide
       intro="One account for the owner; you can invite your team afterwards."
       footer={
         <>

@@ -20,13 +20,13 @@ export function TaxModeField({ field, error }: { field: UseFormRegisterReturn; e
     <fieldset className="flex flex-col gap-2" aria-describedby={error ? errorId : undefined}>
       <legend className="mb-1 text-sm font-medium text-ink">Menu prices</legend>
       <label className="flex items-start gap-2 text-ink">
-        <input type="radio" value="inclusive" className={`mt-1 h-4 w-4 accent-copper ${focusRing}`} aria-invalid={error ? true : undefined} {...field} />
+        <input type="radio" value="inclusive" className={`mt-1 h-4 w-4 shrink-0 accent-copper ${focusRing}`} aria-invalid={error ? true : undefined} {...field} />
         <span>
           <span className="font-medium">Include tax</span>: the price on the menu is what the customer pays.
         </span>
       </label>
       <label className="flex items-start gap-2 text-ink">
-        <input type="radio" value="exclusive" className={`mt-1 h-4 w-4 accent-copper ${focusRing}`} aria-invalid={error ? true : undefined} {...field} />
+        <input type="radio" value="exclusive" className={`mt-1 h-4 w-4 shrink-0 accent-copper ${focusRing}`} aria-invalid={error ? true : undefined} {...field} />
         <span>
           <span className="font-medium">Exclude tax</span>: tax is added on top at the till.
         </span>

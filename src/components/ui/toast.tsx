@@ -21,7 +21,7 @@ export function ToastProvider({ children }: { children: ReactNode }) {
   return (
     <ToastContext.Provider value={{ notify }}>
       {children}
-      <div aria-live="polite" role="status" className="pointer-events-none fixed inset-x-0 bottom-4 z-50 flex justify-center px-4 print:hidden">
+      <div aria-live="polite" role="status" className="pointer-events-none fixed inset-x-0 bottom-4 z-50 flex justify-center px-4 sm:justify-end sm:px-6 print:hidden">
         {message && (
           <p key={message.n} className="rounded-md border border-olive/40 bg-card px-4 py-2 text-sm font-medium text-ink shadow-lg">
             <span aria-hidden="true" className="mr-1.5 text-olive">

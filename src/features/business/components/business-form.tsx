@@ -48,12 +48,13 @@ function Form({ business }: { business: Business }) {
             <CountryOptions />
           </Select>
         </Field>
-        <Field label="Currency" hint="Changing it does not convert prices already entered." error={errors.currency?.message}>
+        <Field label="Currency" error={errors.currency?.message}>
           <Select {...register('currency')}>
             <CurrencyOptions />
           </Select>
         </Field>
       </div>
+      <p className="-mt-2 text-sm text-muted">Changing the currency does not convert amounts already entered.</p>
       <TaxModeField field={register('taxMode')} error={errors.taxMode?.message} />
       <div>
         <Button type="submit" busy={update.isPending} disabled={!isDirty}>

@@ -105,8 +105,8 @@ export function MembersTable({ members, currentUserId }: { members: Member[]; cu
         title={`Remove ${removing?.name ?? ''}?`}
         consequence={
           <p>
-            {removing?.name} will be signed out and lose access to this business straight away. Their past work (counts, orders, changes) stays
-            in the records. To bring them back, send a new invitation.
+            {removing?.name}&apos;s account ({removing?.email}) will be deleted and they will lose access to this business straight away. To
+            bring them back, send a new invitation.
           </p>
         }
         confirmLabel="Remove from the business"
