@@ -21,6 +21,7 @@ describe('money helpers', () => {
     expect(writeCost('0.40125')).toBe('0.4013');
     expect(writePercent('75.3')).toBe('75.30');
     expect(writeFixed('-0.125', 2)).toBe('-0.13');
+    expect(writeFixed('-0.004', 2)).toBe('0.00'); // never "-0.00" (found by the rational reference property)
   });
 
   it('writes a value exactly on a boundary the way exact arithmetic does, despite division error', () => {
