@@ -15,12 +15,12 @@ type Emit = Ctx['emit'];
 
 const CREATE_PARAMS = [
   'amount', 'currency', 'customer', 'payment_method', 'confirm', 'off_session', 'return_url',
-  'automatic_payment_methods', 'payment_method_types', 'description', 'metadata', 'expand',
+  'automatic_payment_methods', 'payment_method_types', 'allowed_payment_method_types', 'description', 'metadata', 'expand',
   'receipt_email', 'setup_future_usage', 'error_on_requires_action',
 ] as const;
 const CONFIRM_PARAMS = [
   'payment_method', 'return_url', 'off_session', 'error_on_requires_action', 'receipt_email',
-  'setup_future_usage', 'expand',
+  'setup_future_usage', 'allowed_payment_method_types', 'expand',
 ] as const;
 const EXPANDABLE = ['latest_charge', 'customer', 'payment_method'] as const;
 const CONFIRMABLE: readonly Stripe.PaymentIntent.Status[] = ['requires_payment_method', 'requires_confirmation', 'requires_action'];
@@ -80,15 +80,31 @@ function parseAutomatic(params: Params): Stripe.PaymentIntent.AutomaticPaymentMe
   return { enabled, allow_redirects: allow ?? 'always' };
 }
 
-function parseTypes(params: Params): string[] | undefined {
-  const types = optStringArray(params, 'payment_method_types');
+/**
+ * Card-only payment method types. The SDK's pinned API version names the
+ * parameter `allowed_payment_method_types`; older versions `payment_method_types`.
+ * Both are accepted; giving both is refused.
+ */
+function parseTypes(params: Params): { name: 'allowed_payment_method_types' | 'payment_method_types'; types: string[] } | undefined {
+  if (params.allowed_payment_method_types !== undefined && params.payment_method_types !== undefined) {
+    throw paramError('You may only specify one of these parameters: allowed_payment_method_types, payment_method_types.', 'payment_method_types');
+  }
+  const name = params.allowed_payment_method_types !== undefined ? 'allowed_payment_method_types' : 'payment_method_types';
+  const types = optStringArray(params, name);
   if (!types) return undefined;
   for (const t of types) {
     if (t !== 'card') {
-      throw paramError(`The payment method type "${t}" is not supported by the local payments fake (only "card").`, 'payment_method_types');
+      throw paramError(`The payment method type "${t}" is not supported by the local payments fake (only "card").`, name);
     }
   }
-  return types;
+  return { name, types };
+}
+
+/** `off_session` is a boolean, or in the SDK's API version also 'one_off' | 'recurring'. */
+function parseOffSession(params: Params): boolean {
+  const v = params.off_session;
+  if (v === 'one_off' || v === 'recurring') return true;
+  return optBool(params, 'off_session') ?? false;
 }
 
 function checkPaymentMethodOwner(pm: StoredPaymentMethod, customer: string | null): void {
@@ -124,7 +140,7 @@ export function createIntent(ctx: Ctx): unknown {
     throw paramError(`Amount must be no more than ${formatMinor(MAX_AMOUNT, currency)} ${currency}`, 'amount', 'amount_too_large');
   }
   const confirm = optBool(p, 'confirm') ?? false;
-  const offSession = optBool(p, 'off_session') ?? false;
+  const offSession = parseOffSession(p);
   const errorOnRequiresAction = optBool(p, 'error_on_requires_action') ?? false;
   if (!confirm && (p.off_session !== undefined || p.error_on_requires_action !== undefined)) {
     const name = p.off_session !== undefined ? 'off_session' : 'error_on_requires_action';
@@ -137,7 +153,7 @@ export function createIntent(ctx: Ctx): unknown {
   const automatic = parseAutomatic(p);
   const types = parseTypes(p);
   if (automatic && types) {
-    throw paramError('You may only specify one of these parameters: automatic_payment_methods, payment_method_types.', 'automatic_payment_methods');
+    throw paramError(`You may only specify one of these parameters: automatic_payment_methods, ${types.name}.`, 'automatic_payment_methods');
   }
   const automaticSetting = types ? null : (automatic ?? { enabled: true, allow_redirects: 'always' as const });
   if (confirm && returnUrl === undefined && automaticSetting?.allow_redirects !== 'never' && !types) {
@@ -159,8 +175,11 @@ export function createIntent(ctx: Ctx): unknown {
 
   const pi = buildPaymentIntent({
     amount, currency, customer: customerId, paymentMethod: pm?.object.id ?? null, description, metadata,
-    receiptEmail, setupFutureUsage, paymentMethodTypes: types ?? ['card'], automatic: automaticSetting,
+    receiptEmail, setupFutureUsage, paymentMethodTypes: types?.types ?? ['card'], automatic: automaticSetting,
   });
+  if (types?.name === 'allowed_payment_method_types') {
+    pi.allowed_payment_method_types = types.types as Stripe.PaymentIntent.AllowedPaymentMethodType[];
+  }
   const stored: StoredIntent = { object: pi, seq: ctx.account.nextSeq(), returnUrl: null, pendingCard: null };
   ctx.account.intents.set(pi.id, stored);
   ctx.emit('payment_intent.created', pi);
@@ -173,11 +192,12 @@ export function createIntent(ctx: Ctx): unknown {
 export function confirmIntentRoute(ctx: Ctx): unknown {
   const p = ctx.params;
   rejectUnknown(p, CONFIRM_PARAMS);
-  const offSession = optBool(p, 'off_session') ?? false;
+  const offSession = parseOffSession(p);
   const errorOnRequiresAction = optBool(p, 'error_on_requires_action') ?? false;
   const returnUrl = parseReturnUrl(p);
   const setupFutureUsage = optEnum(p, 'setup_future_usage', ['on_session', 'off_session'] as const);
   const receiptEmail = optString(p, 'receipt_email');
+  const types = parseTypes(p);
   const expand = checkExpand(expandList(p));
   const pmParam = optString(p, 'payment_method') || null;
 
@@ -198,7 +218,7 @@ export function confirmIntentRoute(ctx: Ctx): unknown {
       'parameter_missing',
     );
   }
-  const redirectsAllowed = pi.automatic_payment_methods?.enabled && pi.automatic_payment_methods.allow_redirects !== 'never';
+  const redirectsAllowed = !types && pi.automatic_payment_methods?.enabled && pi.automatic_payment_methods.allow_redirects !== 'never';
   if (redirectsAllowed && !returnUrl && !stored.returnUrl) throw paramError(RETURN_URL_REQUIRED, 'return_url');
 
   const pm = resolvePaymentMethod(ctx, pmId, 'payment_method');
@@ -206,6 +226,13 @@ export function confirmIntentRoute(ctx: Ctx): unknown {
   checkPaymentMethodOwner(pm, customer);
   if (setupFutureUsage !== undefined) pi.setup_future_usage = setupFutureUsage;
   if (receiptEmail !== undefined) pi.receipt_email = receiptEmail || null;
+  if (types) {
+    pi.automatic_payment_methods = null;
+    pi.payment_method_types = types.types;
+    if (types.name === 'allowed_payment_method_types') {
+      pi.allowed_payment_method_types = types.types as Stripe.PaymentIntent.AllowedPaymentMethodType[];
+    }
+  }
   runConfirmation(ctx, stored, pm, { offSession, errorOnRequiresAction, returnUrl: returnUrl ?? stored.returnUrl });
   return renderIntent(ctx.account, pi, expand);
 }

@@ -15,7 +15,7 @@ afterAll(async () => {
   await fake.close();
 });
 
-const card = { payment_method_types: ['card'] };
+const card = { allowed_payment_method_types: ['card'] };
 
 describe('encoding and shapes', () => {
   it('round-trips bracketed metadata and expands latest_charge on create and retrieve', async () => {
@@ -84,6 +84,17 @@ describe('encoding and shapes', () => {
       automatic_payment_methods: { enabled: true, allow_redirects: 'never' },
     });
     expect(ok.status).toBe('succeeded');
+    // The name of older API versions is accepted too (the SDK's types no longer have it).
+    const legacy = await stripe.paymentIntents.create({
+      amount: 900, currency: 'eur', payment_method: 'pm_card_visa', confirm: true, payment_method_types: ['card'],
+    } as Stripe.PaymentIntentCreateParams);
+    expect(legacy.status).toBe('succeeded');
+    expect(legacy.payment_method_types).toEqual(['card']);
+    const allowed = await stripe.paymentIntents.create({
+      amount: 900, currency: 'eur', payment_method: 'pm_card_visa', confirm: true, allowed_payment_method_types: ['card'],
+    });
+    expect(allowed.allowed_payment_method_types).toEqual(['card']);
+    expect(allowed.automatic_payment_methods).toBeNull();
     const withUrl = await stripe.paymentIntents.create({
       amount: 900, currency: 'eur', payment_method: 'pm_card_visa', confirm: true, return_url: 'http://127.0.0.1:5173/paid',
     });

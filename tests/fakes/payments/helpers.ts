@@ -41,9 +41,10 @@ export interface Received {
 
 /**
  * A webhook receiver built the way the app's is: express.raw on the route,
- * the raw bytes kept for signature checks. `answer` picks the status per call.
+ * the raw bytes kept for signature checks. `answer` picks the status per call,
+ * `holdMs` how long that call waits before answering.
  */
-export async function startReceiver(answer: (n: number) => number = () => 200) {
+export async function startReceiver(answer: (n: number) => number = () => 200, holdMs: (n: number) => number = () => 0) {
   const received: Received[] = [];
   let calls = 0;
   const app = express();
@@ -51,7 +52,10 @@ export async function startReceiver(answer: (n: number) => number = () => 200) {
     calls += 1;
     const raw = (req.body as Buffer).toString('utf8');
     received.push({ raw, signature: String(req.get('stripe-signature')), event: JSON.parse(raw) });
-    res.status(answer(calls)).json({ received: true });
+    const n = calls;
+    setTimeout(() => {
+      if (!res.writableEnded && !res.destroyed) res.status(answer(n)).json({ received: true });
+    }, holdMs(n));
   });
   const server = app.listen(0, '127.0.0.1');
   await new Promise<void>((resolve) => server.once('listening', () => resolve()));

@@ -20,7 +20,7 @@ afterAll(async () => {
 
 const create = 'POST /v1/payment_intents';
 const params = (orderId: string): Stripe.PaymentIntentCreateParams => ({
-  amount: 2750, currency: 'usd', payment_method: 'pm_card_visa', confirm: true, payment_method_types: ['card'],
+  amount: 2750, currency: 'usd', payment_method: 'pm_card_visa', confirm: true, allowed_payment_method_types: ['card'],
   metadata: { order_id: orderId },
 });
 
