@@ -14,9 +14,17 @@ function asNumeric(value: string): Numeric {
   return trimmed as Numeric;
 }
 
-/** Money in the business's currency; 2 decimals, or 4 where the user asked for detail. */
+/** The currency's own number of decimals (its ISO 4217 minor unit): 2 for GBP, 0 for JPY, 3 for BHD. */
+export function currencyDecimals(currency: string): number {
+  return new Intl.NumberFormat('en', { style: 'currency', currency }).resolvedOptions().maximumFractionDigits ?? 2;
+}
+
+/**
+ * Money in the business's currency, with the currency's own decimals, or two
+ * more where the user asked for detail (4 for pounds, dollars and euros).
+ */
 export function formatMoney(amount: string, currency: string, opts: { detail?: boolean; locale?: string } = {}): string {
-  const decimals = opts.detail ? 4 : 2;
+  const decimals = currencyDecimals(currency) + (opts.detail ? 2 : 0);
   return new Intl.NumberFormat(opts.locale, {
     style: 'currency',
     currency,

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { formatDate, formatMoney, formatPercent, formatQuantity } from '../../src/lib/format';
+import { currencyDecimals, formatDate, formatMoney, formatPercent, formatQuantity } from '../../src/lib/format';
 
 // Expected strings follow the Unicode CLDR locale data shipped with Node's ICU
 // (en-GB, en-US, de-DE number and currency patterns). Narrow no-break spaces
@@ -20,6 +20,13 @@ describe('formatMoney', () => {
     // 0.1 + 0.2 style errors would show here; as a float 12345678901234567.89 is 12345678901234568.
     expect(formatMoney('12345678901234567.89', 'GBP', { locale: 'en-GB' })).toBe('£12,345,678,901,234,567.89');
     expect(formatMoney('1.005', 'GBP', { locale: 'en-GB' })).toBe('£1.01'); // the float 1.005 is 1.00499999…
+  });
+
+  it("uses the currency's minor unit from ISO 4217 (JPY 0, GBP 2, BHD 3), two more in detail", () => {
+    expect([currencyDecimals('JPY'), currencyDecimals('GBP'), currencyDecimals('BHD')]).toEqual([0, 2, 3]);
+    expect(formatMoney('480', 'JPY', { locale: 'en-US' })).toBe('¥480');
+    expect(formatMoney('12.3456', 'JPY', { locale: 'en-US', detail: true })).toBe('¥12.35');
+    expect(formatMoney('1.2345', 'BHD', { locale: 'en-US' })).toBe('BHD 1.235');
   });
 
   it('refuses what is not a decimal string', () => {
