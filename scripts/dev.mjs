@@ -13,7 +13,7 @@ const env = { DATABASE_URL: process.env.DATABASE_URL ?? databaseUrl, PORT: port,
 if (run(bin('tsx'), ['scripts/db.ts', 'seed-once'], env) !== 0) await stopAll(1);
 for (const fake of ['mail', 'payments']) {
   const main = path.join(root, 'fakes', fake, 'main.ts');
-  if (fs.existsSync(main)) startChild(`${fake} fake`, bin('tsx'), [main], { ...env, PAYMENTS_WEBHOOK_URL: `http://127.0.0.1:${port}/api/webhooks/payments` });
+  if (fs.existsSync(main)) startChild(`${fake} fake`, bin('tsx'), [main], { ...env, PAYMENTS_WEBHOOK_SECRET: process.env.STRIPE_WEBHOOK_SECRET ?? 'whsec_tamp_and_tally_local_secret', PAYMENTS_WEBHOOK_URL: `http://127.0.0.1:${port}/api/webhooks/payments` });
 }
 startChild('server', bin('tsx'), ['watch', 'server/index.ts'], env);
 startChild('vite', bin('vite'), [], env);

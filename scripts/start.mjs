@@ -22,7 +22,7 @@ if (run(bin('vite'), ['build', '--logLevel', 'warn']) !== 0) await stopAll(1);
 
 for (const fake of ['mail', 'payments']) {
   const main = path.join(root, 'fakes', fake, 'main.ts');
-  if (fs.existsSync(main)) startChild(`${fake} fake`, bin('tsx'), [main], { ...env, PAYMENTS_WEBHOOK_URL: `${env.APP_URL}/api/webhooks/payments` });
+  if (fs.existsSync(main)) startChild(`${fake} fake`, bin('tsx'), [main], { ...env, PAYMENTS_WEBHOOK_SECRET: process.env.STRIPE_WEBHOOK_SECRET ?? 'whsec_tamp_and_tally_local_secret', PAYMENTS_WEBHOOK_URL: `${env.APP_URL}/api/webhooks/payments` });
 }
 startChild('server', bin('tsx'), ['server/index.ts'], env);
 
