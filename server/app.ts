@@ -19,6 +19,8 @@ import { errorHandler } from './http/error-handler';
 import { notFound } from './errors';
 import { teamRoutes } from './team/team.routes';
 import { sitesRoutes } from './sites/sites.routes';
+import { costingRouters } from './costing/costing.routes';
+import { suppliersRoutes } from './suppliers/suppliers.routes';
 
 export interface AppDeps {
   db: Knex;
@@ -119,7 +121,7 @@ export function createApp(deps: AppDeps) {
 
 /** Every domain's router, each defining full /api paths (the route table test walks them). */
 function apiRouters(deps: AppDeps, passport: ReturnType<typeof configurePassport>): Router[] {
-  return [authRoutes(deps, passport), teamRoutes(deps), sitesRoutes(deps)];
+  return [authRoutes(deps, passport), teamRoutes(deps), sitesRoutes(deps), ...costingRouters(deps), suppliersRoutes(deps)];
 }
 
 function rawBodyRouters(_deps: AppDeps): Router[] {
