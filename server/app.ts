@@ -21,6 +21,11 @@ import { teamRoutes } from './team/team.routes';
 import { sitesRoutes } from './sites/sites.routes';
 import { costingRouters } from './costing/costing.routes';
 import { suppliersRoutes } from './suppliers/suppliers.routes';
+import { booksRouters } from './books/books.routes';
+import { ordersRoutes } from './orders/orders.routes';
+import { paymentsRoutes, paymentsWebhookRoutes } from './payments/payments.routes';
+import { stockRoutes } from './stock/stock.routes';
+import { repricingRoutes } from './repricing/repricing.routes';
 
 export interface AppDeps {
   db: Knex;
@@ -121,10 +126,10 @@ export function createApp(deps: AppDeps) {
 
 /** Every domain's router, each defining full /api paths (the route table test walks them). */
 function apiRouters(deps: AppDeps, passport: ReturnType<typeof configurePassport>): Router[] {
-  return [authRoutes(deps, passport), teamRoutes(deps), sitesRoutes(deps), ...costingRouters(deps), suppliersRoutes(deps)];
+  return [authRoutes(deps, passport), teamRoutes(deps), sitesRoutes(deps), ...costingRouters(deps), suppliersRoutes(deps), ...booksRouters(deps), repricingRoutes(deps), ordersRoutes(deps), paymentsRoutes(deps), stockRoutes(deps)];
 }
 
-function rawBodyRouters(_deps: AppDeps): Router[] {
-  return [];
+function rawBodyRouters(deps: AppDeps): Router[] {
+  return [paymentsWebhookRoutes(deps)];
 }
 
