@@ -70,6 +70,9 @@ export interface PolicyRow {
 }
 
 export interface CostRows {
+  businessId: string;
+  /** The date whose prices the packs carry. */
+  asOf: string;
   business: { currency: string; tax_mode: 'inclusive' | 'exclusive' };
   ingredients: IngredientRow[];
   packs: PackPriceRow[];
@@ -134,7 +137,7 @@ export async function loadCostRows(db: Knex, businessId: string, asOf: string): 
     listPolicies(db, businessId),
   ]);
   if (!business) throw new Error(`Business ${businessId} not found`);
-  return { business, ingredients, packs, measures, preparations, preparationLines, policies };
+  return { businessId, asOf, business, ingredients, packs, measures, preparations, preparationLines, policies };
 }
 
 export interface DrinkRow {
@@ -158,6 +161,8 @@ export interface DrinkSizeRow {
 export interface BuildLineRow extends LineRow {
   drink_size_id: string;
 }
+
+export type MenuRows = Awaited<ReturnType<typeof loadMenuRows>>;
 
 /** Every live drink, its sizes and build lines: three queries for the whole menu (or one drink). */
 export async function loadMenuRows(db: Knex, businessId: string, drinkId?: string) {

@@ -5,7 +5,7 @@ import { dec, type Dec } from '../../src/shared/decimal';
 import { minorUnitStep } from '../../src/shared/money';
 import type { PricingPolicy } from '../../src/shared/pricing';
 import type { BaseUnit } from '../../src/shared/units';
-import { loadCostRows, type IngredientRow, type LineRow, type MeasureRow, type PackPriceRow, type PolicyRow, type PreparationLineRow, type PreparationRow } from './cost-model.repo';
+import { loadCostRows, type CostRows, type IngredientRow, type LineRow, type MeasureRow, type PackPriceRow, type PolicyRow, type PreparationLineRow, type PreparationRow } from './cost-model.repo';
 import { groupBy, today, yieldBaseUnit } from './shared';
 
 export interface CostModelOptions {
@@ -120,8 +120,16 @@ const ITEM_PATH = /^(ingredients|preparations)\[(\d+)\]/;
  * lines that use them report it instead of throwing.
  */
 export async function loadCostModel(db: Knex, businessId: string, options: CostModelOptions = {}): Promise<LoadedCostModel> {
-  const asOf = options.asOf ?? today();
-  const rows = await loadCostRows(db, businessId, asOf);
+  return buildLoadedCostModel(await loadCostRows(db, businessId, options.asOf ?? today()), options);
+}
+
+/**
+ * The pure half of {@link loadCostModel}: builds the model from rows already loaded (with
+ * loadCostRows for `rows.asOf`), applying `options.priceOverrides`. No I/O: the bench times it.
+ */
+export function buildLoadedCostModel(rows: CostRows, options: CostModelOptions = {}): LoadedCostModel {
+  const { businessId, asOf } = rows;
+  if (options.asOf !== undefined && options.asOf !== asOf) throw new Error(`The rows carry prices as of ${asOf}, not ${options.asOf}.`);
   const currency = rows.business.currency;
 
   const packsByIngredient = groupBy(rows.packs, (p) => p.ingredient_id);

@@ -6,7 +6,7 @@ import { writeCost, writeMoney, writePercent } from '../../src/shared/money';
 import { exactPriceFigures, parsePolicy, priceFigures, suggestPrice } from '../../src/shared/pricing';
 import { UNITS, isUnitCode } from '../../src/shared/units';
 import { notFound } from '../errors';
-import { loadMenuRows, type BuildLineRow, type DrinkSizeRow } from './cost-model.repo';
+import { loadMenuRows, type BuildLineRow, type DrinkSizeRow, type MenuRows } from './cost-model.repo';
 import { loadCostModel, type CostModelOptions, type LoadedCostModel } from './cost-model.service';
 import { groupBy } from './shared';
 
@@ -57,6 +57,11 @@ export async function drinkCosting(db: Knex, businessId: string, drinkId: string
  */
 export async function menuCosting(db: Knex, businessId: string, options: CostModelOptions = {}) {
   const [rows, loaded] = await Promise.all([loadMenuRows(db, businessId), loadCostModel(db, businessId, options)]);
+  return menuCostingFrom(loaded, rows);
+}
+
+/** The pure half of {@link menuCosting}: every drink × size costed from a built model and the menu rows. */
+export function menuCostingFrom(loaded: LoadedCostModel, rows: MenuRows) {
   const { currency } = loaded;
   const linesBySize = groupBy(rows.lines, (l) => l.drink_size_id);
   const sizesByDrink = groupBy(rows.sizes, (s) => s.drink_id);
