@@ -3,8 +3,8 @@ import { D, dec, type Dec } from '../../src/shared/decimal';
 import { writeCost, writeMoney, writePercent } from '../../src/shared/money';
 import { exactPriceFigures, parsePolicy, roundPrice, grossForTargetMargin, type ExactPriceFigures } from '../../src/shared/pricing';
 import type { PreviewInput } from '../../src/shared/schemas/repricing';
-import { loadMenuRows, type BuildLineRow, type DrinkSizeRow, type LineRow } from '../costing/cost-model.repo';
-import { loadCostModel, type LoadedCostModel } from '../costing/cost-model.service';
+import { loadCostRows, loadMenuRows, type BuildLineRow, type DrinkSizeRow, type LineRow } from '../costing/cost-model.repo';
+import { buildLoadedCostModel, type LoadedCostModel } from '../costing/cost-model.service';
 import { groupBy, today } from '../costing/shared';
 import { invalidInput } from '../errors';
 import { keepLadder } from './ladder';
@@ -136,12 +136,15 @@ export async function previewImpact(db: Knex, businessId: string, input: Preview
   const now = options.today ?? today();
   const asOf = input.asOf ?? now;
   const overrides = new Map(input.changes.map((c) => [c.ingredientId, c.newPrice]));
-  const [menu, before, after, modifierLines] = await Promise.all([
+  // One set of cost rows serves both models when both are costed today (the usual case).
+  const [menu, rowsNow, rowsLater, modifierLines] = await Promise.all([
     loadMenuRows(db, businessId),
-    loadCostModel(db, businessId, { asOf: now }),
-    loadCostModel(db, businessId, { asOf, priceOverrides: overrides }),
+    loadCostRows(db, businessId, now),
+    asOf === now ? null : loadCostRows(db, businessId, asOf),
     listModifierLines(db, businessId),
   ]);
+  const before = buildLoadedCostModel(rowsNow, { asOf: now });
+  const after = buildLoadedCostModel(rowsLater ?? rowsNow, { asOf, priceOverrides: overrides });
   const { currency } = before;
 
   const fields: Record<string, string> = {};
