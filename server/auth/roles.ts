@@ -43,8 +43,9 @@ export const CAPABILITIES = {
   'payments.manage': ['owner'],
   'stock.read': ['owner', 'manager', 'barista', 'bookkeeper'],
   'stock.manage': ['owner', 'manager'],
-  'counts.write': ['owner', 'manager', 'barista'],
-  'waste.write': ['owner', 'manager', 'barista'],
+  'counts.write': ['owner', 'manager', 'barista', 'bookkeeper'],
+  // Issue 6: bookkeeper and owner everything in the books; manager counts, imports and reports; barista counts and waste.
+  'waste.write': ['owner', 'barista', 'bookkeeper'],
   'sales.import': ['owner', 'manager', 'bookkeeper'],
   'reports.read': ['owner', 'manager', 'bookkeeper'],
   'periods.close': ['owner', 'bookkeeper'],
