@@ -10,6 +10,7 @@ import { createDb } from '../../server/db/knex';
 import { createLogger } from '../../server/logger';
 import { createMailer } from '../../server/mail/mailer';
 import { startMailFake, type MailFake } from '../../fakes/mail/server';
+import { startPaymentsFake, type PaymentsFake } from '../../fakes/payments/server';
 import type { Knex } from 'knex';
 import { freePort } from '../../scripts/lib/postgres.mjs';
 
@@ -20,6 +21,8 @@ export interface Served {
   url: string;
   db: Knex;
   mail: MailFake;
+  /** The payments fake the app's SDK talks to; its webhooks reach the app. */
+  payments: PaymentsFake;
   config: Config;
   browser: BrowserContext;
   newPage(): Promise<Page>;
@@ -39,6 +42,8 @@ export async function serveDemo(): Promise<Served> {
   const mail = await startMailFake({ smtpPort: 0, httpPort: 0 });
   // The app needs its own URL (for links in e-mails) before it listens.
   const port = await freePort();
+  const webhookSecret = 'whsec_e2e_payments_fake';
+  const payments = await startPaymentsFake({ port: 0, webhookUrl: `http://127.0.0.1:${port}/api/webhooks/payments`, webhookSecret, webhookRetryDelaysMs: [100, 300, 600] });
   const config = loadConfig({
     NODE_ENV: 'test',
     DATABASE_URL: databaseUrl,
@@ -47,6 +52,10 @@ export async function serveDemo(): Promise<Served> {
     APP_URL: `http://127.0.0.1:${port}`,
     DEV_MAILBOX_URL: mail.httpUrl,
     LOGIN_MAX_FAILURES_PER_ADDRESS: '10000',
+    STRIPE_API_HOST: payments.host,
+    STRIPE_API_PORT: String(payments.port),
+    STRIPE_API_PROTOCOL: 'http',
+    STRIPE_WEBHOOK_SECRET: webhookSecret,
   });
   const mailer = createMailer({ host: '127.0.0.1', port: mail.smtpPort, from: config.MAIL_FROM });
   const app = createApp({ db, config, mailer, logger: createLogger('silent') });
@@ -66,6 +75,7 @@ export async function serveDemo(): Promise<Served> {
     url,
     db,
     mail,
+    payments,
     config,
     browser,
     async newPage() {
@@ -91,6 +101,7 @@ export async function serveDemo(): Promise<Served> {
       await new Promise((r) => server.close(r));
       await app.locals.shutdown();
       await mail.close();
+      await payments.close();
       await db.destroy();
     },
   };
