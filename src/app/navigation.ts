@@ -26,6 +26,9 @@ export const navigation: readonly NavEntry[] = [
   entry(paths.home, 'Home', everyone, 'See what you can do here.'),
   entry(paths.team, 'Team', ['owner'], 'Invite people, choose their roles and remove access.'),
   entry(paths.settings, 'Settings', ['owner'], 'Business name, country, currency, tax on menu prices and your sites.'),
+  entry(paths.drinks, 'Drinks', ['owner', 'manager'], 'Build each drink per cup size and see its cost per cup as you type.'),
+  entry(paths.menuCosting, 'Menu costing', ['owner', 'manager', 'bookkeeper'], 'Cost, margin and suggested price of every drink in every size.'),
+  entry(paths.cards, 'Recipe cards', everyone, 'The build of each drink per cup size, for the bar.'),
 ];
 
 export function entriesFor(role: Role): NavEntry[] {

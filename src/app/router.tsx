@@ -13,6 +13,11 @@ import { SettingsRoute } from './routes/settings';
 import { SignInRoute } from './routes/sign-in';
 import { SignUpRoute } from './routes/sign-up';
 import { TeamRoute } from './routes/team';
+import { CardRoute } from './routes/card';
+import { CardsRoute } from './routes/cards';
+import { DrinkEditorRoute } from './routes/drink-editor';
+import { DrinksRoute } from './routes/drinks';
+import { MenuCostingRoute } from './routes/menu-costing';
 
 export const router = createBrowserRouter([
   {
@@ -36,6 +41,12 @@ export const router = createBrowserRouter([
           { path: paths.gettingStarted.path, element: <GettingStartedRoute /> },
           { path: paths.team.path, element: <TeamRoute /> },
           { path: paths.settings.path, element: <SettingsRoute /> },
+          { path: paths.drinks.path, element: <DrinksRoute /> },
+          { path: paths.newDrink.path, element: <DrinkEditorRoute /> },
+          { path: paths.drink.path, element: <DrinkEditorRoute /> },
+          { path: paths.menuCosting.path, element: <MenuCostingRoute /> },
+          { path: paths.cards.path, element: <CardsRoute /> },
+          { path: paths.card.path, element: <CardRoute /> },
           { path: '*', element: <NotFoundRoute /> },
         ],
       },

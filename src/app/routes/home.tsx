@@ -5,12 +5,13 @@ import { roleLabels, type Role } from '../../lib/api-types';
 import { paths } from '../../lib/paths';
 import { useMe } from '../../features/auth/api/get-me';
 import { entriesFor } from '../navigation';
+import { CardsSection } from './cards';
 
 const welcome: Record<Role, string> = {
   owner: 'You run the business here: its team, its settings, and everything the others can do.',
   manager: 'You look after the menu, its costs, suppliers, orders and stock.',
   bookkeeper: 'You see the sales, the cost of goods and the month-end figures.',
-  barista: 'Your recipe cards and stock counts will be here, sized for your phone.',
+  barista: 'Your recipe cards and stock counts, sized for your phone.',
 };
 
 export function HomeRoute() {
@@ -22,10 +23,9 @@ export function HomeRoute() {
 
   if (user.role === 'barista')
     return (
-      <div className="max-w-xl text-xl">
-        <PageHeader title={`Hello, ${firstName}`} />
-        <p className="text-ink">{welcome.barista}</p>
-        <p className="mt-4 text-muted">Nothing to do yet. Your manager will set up the drinks first.</p>
+      <div className="max-w-5xl text-xl">
+        <PageHeader title={`Hello, ${firstName}`} description="Tap a drink to open its recipe card." />
+        <CardsSection />
       </div>
     );
 

@@ -1,0 +1,98 @@
+import { z } from 'zod';
+import { ALLERGEN_CODES } from '../../shared/allergens';
+import { rules } from '../../shared/checks';
+import { decimalString, pricingPolicySchema } from '../../shared/schemas/costing';
+import { BASE_UNITS, UNIT_CODES } from '../../shared/units';
+import { INGREDIENT_CATEGORIES } from './api/types';
+
+// The forms' rules, built from the shared decimal rules the server applies, so
+// a field is refused here with the same words the API would use.
+
+const line = z.object({
+  item: z.string().min(1, 'Choose an ingredient or preparation from the list.'),
+  quantity: decimalString(rules.positive),
+  unit: z.string().min(1, 'Choose a unit or measure.'),
+});
+export const linesSchema = z.array(line);
+const looseLine = z.object({ item: z.string(), quantity: z.string(), unit: z.string() });
+
+export const drinkFormSchema = z
+  .object({
+    name: z.string().trim().min(1, 'Name the drink.').max(120),
+    category: z.string().trim().min(1, 'Give the drink a category, e.g. espresso or tea.').max(60),
+    temperature: z.enum(['hot', 'iced'], { error: 'Choose hot or iced.' }),
+    notes: z.string().max(2000),
+    sizes: z.array(z.object({ sizeId: z.string(), name: z.string(), volumeMl: z.string(), offered: z.boolean(), currentPrice: z.string(), lines: z.array(looseLine) })),
+  })
+  .superRefine((v, ctx) => {
+    if (!v.sizes.some((s) => s.offered)) ctx.addIssue({ code: 'custom', path: ['sizes'], message: 'Offer the drink in at least one cup size.' });
+    v.sizes.forEach((s, i) => {
+      if (!s.offered) return;
+      if (s.currentPrice.trim() !== '') {
+        const r = decimalString(rules.positive).safeParse(s.currentPrice.trim());
+        if (!r.success) ctx.addIssue({ code: 'custom', path: ['sizes', i, 'currentPrice'], message: r.error.issues[0].message });
+      }
+      if (s.lines.length === 0) ctx.addIssue({ code: 'custom', path: ['sizes', i, 'lines'], message: `Add at least one line to the ${s.name} build.` });
+      s.lines.forEach((l, j) => {
+        const r = line.safeParse(l);
+        if (!r.success) for (const issue of r.error.issues) ctx.addIssue({ code: 'custom', path: ['sizes', i, 'lines', j, ...issue.path], message: issue.message });
+      });
+    });
+  });
+export type DrinkFormValues = z.input<typeof drinkFormSchema>;
+
+const optionalDecimal = (rule: Parameters<typeof decimalString>[0]) =>
+  z.union([z.literal(''), decimalString(rule)]);
+
+export const preparationFormSchema = z.object({
+  name: z.string().trim().min(1, 'Name the preparation.').max(120),
+  yieldQuantity: decimalString(rules.positive),
+  yieldUnit: z.enum(UNIT_CODES, 'Choose the unit of the yield.'),
+  densityGPerMl: optionalDecimal(rules.positive),
+  method: z.string().max(5000),
+  lines: linesSchema.min(1, 'A preparation needs at least one line.'),
+  measures: z.array(z.object({ id: z.string().optional(), name: z.string().trim().min(1, 'Name the measure.').max(120), quantity: decimalString(rules.positive), unit: z.enum(UNIT_CODES, 'Choose a unit.') })),
+});
+export type PreparationFormValues = z.input<typeof preparationFormSchema>;
+
+export const ingredientFormSchema = z.object({
+  name: z.string().trim().min(1, 'Name the ingredient.').max(120),
+  category: z.enum(INGREDIENT_CATEGORIES, 'Choose a category.'),
+  baseUnit: z.enum(BASE_UNITS, 'Choose how it is measured: g, ml or each.'),
+  densityGPerMl: optionalDecimal(rules.positive),
+  yieldPct: decimalString(rules.yieldPct),
+  allergens: z.array(z.enum(ALLERGEN_CODES)),
+  notes: z.string().max(2000),
+  costingPack: z.string(),
+  packs: z.array(
+    z.object({
+      id: z.string().optional(),
+      supplierId: z.string(),
+      description: z.string().trim().min(1, 'Describe the pack, e.g. "Case of 6 × 2 l".').max(200),
+      supplierCode: z.string().max(60),
+      count: decimalString(rules.positive),
+      quantity: decimalString(rules.positive),
+      unit: z.enum(UNIT_CODES, 'Choose a unit.'),
+      purchaseTaxPct: decimalString(rules.nonNegative),
+      price: decimalString(rules.nonNegative),
+    }),
+  ),
+  measures: z.array(z.object({ id: z.string().optional(), name: z.string().trim().min(1, 'Name the measure, e.g. shot or pump.').max(120), quantity: decimalString(rules.positive), unit: z.enum(UNIT_CODES, 'Choose a unit.') })),
+});
+export type IngredientFormValues = z.input<typeof ingredientFormSchema>;
+
+export const sizeFormSchema = z.object({
+  name: z.string().trim().min(1, 'Name the cup size.').max(60),
+  volumeMl: decimalString(rules.positive),
+});
+
+export const policyFormSchema = z.object({
+  policy: pricingPolicySchema.extend({ priceStep: z.string() }),
+  overrides: z.array(pricingPolicySchema.extend({ priceStep: z.string(), category: z.string().trim().min(1, 'Name the drink category.').max(60) })),
+});
+export type PolicyFormValues = z.input<typeof policyFormSchema>;
+
+/** Server field paths ("sizes[0].lines[1].unit") as form field names ("sizes.0.lines.1.unit"). */
+export function bracketToDots(path: string): string {
+  return path.replace(/\[(\d+)\]/g, '.$1');
+}
