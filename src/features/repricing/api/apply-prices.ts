@@ -1,0 +1,29 @@
+import { useMutation, useQueryClient } from '@tanstack/react-query';
+import { apiClient } from '../../../lib/api-client';
+import { paths } from '../../../lib/paths';
+
+export interface ApplyRequest {
+  effectiveFrom: string;
+  prices: { drinkId: string; size: string; price: string; priceVersion?: number }[];
+  scenarioId?: string;
+  keepLadder?: boolean;
+}
+
+export interface ApplyResult {
+  effectiveFrom: string;
+  scenarioId: string | null;
+  applied: { drinkId: string; drinkName: string; drinkSizeId: string; size: string; oldPrice: string | null; newPrice: string; priceVersion: number; effectiveFrom: string }[];
+}
+
+export function applyPrices(body: ApplyRequest): Promise<ApplyResult> {
+  return apiClient.post<ApplyResult>(paths.api.repriceApply(), body);
+}
+
+export function useApplyPrices() {
+  const queryClient = useQueryClient();
+  return useMutation({
+    mutationFn: applyPrices,
+    // Menu prices changed: every repricing view, the price list and histories are stale.
+    onSettled: () => queryClient.invalidateQueries({ queryKey: ['reprice'] }),
+  });
+}
