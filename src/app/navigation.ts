@@ -29,6 +29,8 @@ export const navigation: readonly NavEntry[] = [
   entry(paths.drinks, 'Drinks', ['owner', 'manager'], 'Build each drink per cup size and see its cost per cup as you type.'),
   entry(paths.menuCosting, 'Menu costing', ['owner', 'manager', 'bookkeeper'], 'Cost, margin and suggested price of every drink in every size.'),
   entry(paths.cards, 'Recipe cards', everyone, 'The build of each drink per cup size, for the bar.'),
+  entry(paths.repricing, 'Repricing', ['owner', 'manager', 'bookkeeper'], "See what a supplier's price rise does to every drink, try scenarios, apply new prices."),
+  entry(paths.priceList, 'Price list', everyone, 'The prices for the counter with allergen marks, to print or download.'),
 ];
 
 export function entriesFor(role: Role): NavEntry[] {

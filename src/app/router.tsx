@@ -13,6 +13,9 @@ import { SettingsRoute } from './routes/settings';
 import { SignInRoute } from './routes/sign-in';
 import { SignUpRoute } from './routes/sign-up';
 import { TeamRoute } from './routes/team';
+import { PriceHistoryRoute } from './routes/price-history';
+import { PriceListRoute } from './routes/price-list';
+import { RepricingRoute } from './routes/repricing';
 import { CardRoute } from './routes/card';
 import { CardsRoute } from './routes/cards';
 import { DrinkEditorRoute } from './routes/drink-editor';
@@ -47,6 +50,9 @@ export const router = createBrowserRouter([
           { path: paths.menuCosting.path, element: <MenuCostingRoute /> },
           { path: paths.cards.path, element: <CardsRoute /> },
           { path: paths.card.path, element: <CardRoute /> },
+          { path: paths.repricing.path, element: <RepricingRoute /> },
+          { path: paths.priceList.path, element: <PriceListRoute /> },
+          { path: paths.priceHistory.path, element: <PriceHistoryRoute /> },
           { path: '*', element: <NotFoundRoute /> },
         ],
       },

@@ -38,6 +38,11 @@ export const paths = {
   cards: { path: '/cards', href: () => '/cards' },
   card: { path: '/cards/:drinkId', href: (id: string) => `/cards/${encodeURIComponent(id)}` },
 
+  // Repricing.
+  repricing: { path: '/repricing', href: () => '/repricing' },
+  priceList: { path: '/price-list', href: () => '/price-list' },
+  priceHistory: { path: '/drinks/:drinkId/price-history', href: (id: string) => `/drinks/${encodeURIComponent(id)}/price-history` },
+
   api: {
     me: () => '/api/auth/me',
     login: () => '/api/auth/login',
@@ -77,6 +82,16 @@ export const paths = {
     cards: () => '/api/cards',
     menuCosting: () => '/api/menu/costing',
     pricingPolicy: () => '/api/pricing-policy',
+    // Repricing.
+    repricePreview: () => '/api/reprice/preview',
+    repriceApply: () => '/api/reprice/apply',
+    repricePlanned: () => '/api/reprice/planned',
+    repriceScenarios: () => '/api/reprice/scenarios',
+    repriceScenario: (id: string) => `/api/reprice/scenarios/${encodeURIComponent(id)}`,
+    repriceCompare: (ids: readonly string[]) => `/api/reprice/compare?ids=${ids.map(encodeURIComponent).join(',')}`,
+    drinkPriceHistory: (id: string) => `/api/drinks/${encodeURIComponent(id)}/price-history`,
+    priceList: () => '/api/price-list',
+    priceListCsv: () => '/api/price-list.csv',
   },
 } as const;
 
