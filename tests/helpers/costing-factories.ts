@@ -110,6 +110,8 @@ export async function makePolicy(
   businessId: string,
   p: { category?: string | null; targetMarginPct?: string; taxMode?: 'inclusive' | 'exclusive'; taxRatePct?: string; priceStep?: string; rounding?: 'up' | 'nearest' | 'none' } = {},
 ) {
+  // Sets the policy: an earlier one for the same category (e.g. saved through the API) is replaced.
+  await db('pricing_policies').where({ business_id: businessId }).whereRaw("coalesce(category, '') = ?", [p.category ?? '']).delete();
   await db('pricing_policies').insert({
     business_id: businessId,
     category: p.category ?? null,
