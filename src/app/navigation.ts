@@ -27,8 +27,11 @@ export const navigation: readonly NavEntry[] = [
   entry(paths.team, 'Team', ['owner'], 'Invite people, choose their roles and remove access.'),
   entry(paths.settings, 'Settings', ['owner'], 'Business name, country, currency, tax on menu prices and your sites.'),
   entry(paths.drinks, 'Drinks', ['owner', 'manager'], 'Build each drink per cup size and see its cost per cup as you type.'),
+  entry(paths.ingredients, 'Ingredients', ['owner', 'manager'], 'What you buy, pack by pack, and its cost per gram, millilitre or measure.'),
+  entry(paths.preparations, 'Preparations', ['owner', 'manager'], 'Syrups, concentrates and cold brew made in house, costed per batch.'),
   entry(paths.menuCosting, 'Menu costing', ['owner', 'manager', 'bookkeeper'], 'Cost, margin and suggested price of every drink in every size.'),
   entry(paths.cards, 'Recipe cards', everyone, 'The build of each drink per cup size, for the bar.'),
+  entry(paths.pricing, 'Sizes and pricing', ['owner', 'manager'], 'Your cup sizes, target margin, tax on menu prices and price rounding.'),
   entry(paths.repricing, 'Repricing', ['owner', 'manager', 'bookkeeper'], "See what a supplier's price rise does to every drink, try scenarios, apply new prices."),
   entry(paths.priceList, 'Price list', everyone, 'The prices for the counter with allergen marks, to print or download.'),
 ];

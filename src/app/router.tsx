@@ -21,6 +21,11 @@ import { CardsRoute } from './routes/cards';
 import { DrinkEditorRoute } from './routes/drink-editor';
 import { DrinksRoute } from './routes/drinks';
 import { MenuCostingRoute } from './routes/menu-costing';
+import { IngredientRoute } from './routes/ingredient';
+import { IngredientsRoute } from './routes/ingredients';
+import { PreparationRoute } from './routes/preparation';
+import { PreparationsRoute } from './routes/preparations';
+import { PricingRoute } from './routes/pricing';
 
 export const router = createBrowserRouter([
   {
@@ -50,6 +55,13 @@ export const router = createBrowserRouter([
           { path: paths.menuCosting.path, element: <MenuCostingRoute /> },
           { path: paths.cards.path, element: <CardsRoute /> },
           { path: paths.card.path, element: <CardRoute /> },
+          { path: paths.ingredients.path, element: <IngredientsRoute /> },
+          { path: paths.newIngredient.path, element: <IngredientRoute /> },
+          { path: paths.ingredient.path, element: <IngredientRoute /> },
+          { path: paths.preparations.path, element: <PreparationsRoute /> },
+          { path: paths.newPreparation.path, element: <PreparationRoute /> },
+          { path: paths.preparation.path, element: <PreparationRoute /> },
+          { path: paths.pricing.path, element: <PricingRoute /> },
           { path: paths.repricing.path, element: <RepricingRoute /> },
           { path: paths.priceList.path, element: <PriceListRoute /> },
           { path: paths.priceHistory.path, element: <PriceHistoryRoute /> },

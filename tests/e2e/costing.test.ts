@@ -172,3 +172,68 @@ test('the owner costs a new drink in three sizes, finds it in menu costing, and 
     await page.close();
   }
 }, 180_000);
+
+test('the owner reads ingredients, a preparation and the pricing settings; figures match the API', async () => {
+  const page = await s.newPage();
+  try {
+    await s.signIn(page, 'owner@demo.test');
+    const locale = await page.evaluate(() => navigator.language);
+    const { currency } = await api<{ currency: string }>(page, '/api/pricing-policy');
+
+    // Ingredients: the table's cost per base unit is the server's, to 4 decimals.
+    const { ingredients } = await api<{ ingredients: { id: string; name: string; unitCost: string | null; category: string }[] }>(page, '/api/ingredients');
+    await page.goto(`${s.url}/ingredients`);
+    await page.locator('tbody tr').first().waitFor();
+    await shot(page, 'ingredients');
+    const milk = ingredients.find((i) => i.name === 'Whole milk')!;
+    const milkRow = page.locator(`tr[data-row="Whole milk"]`);
+    expect(await milkRow.locator('[data-col="unit-cost"]').textContent()).toContain(formatMoney(milk.unitCost!, currency, { detail: true, locale }));
+    await page.getByLabel('Category').selectOption('packaging');
+    await expect.poll(() => page.locator('tbody tr').count()).toBe(ingredients.filter((i) => i.category === 'packaging').length);
+    await page.getByLabel('Search ingredients').fill('no such thing');
+    await page.getByText('No ingredient matches').waitFor();
+
+    // One ingredient's page: its packs, measures and allergens with the caution.
+    await page.goto(`${s.url}/ingredients/${milk.id}`);
+    await page.getByRole('heading', { name: 'Whole milk', level: 1 }).waitFor();
+    expect(await page.getByLabel('Milk', { exact: true }).isChecked()).toBe(true);
+    await page.getByText(/derived only from what was entered/).first().waitFor();
+    await shot(page, 'ingredient');
+
+    // A new ingredient refused inline, with the shared schema's words.
+    await page.goto(`${s.url}/ingredients/new`);
+    await page.getByRole('button', { name: 'Add a pack' }).click();
+    await page.getByLabel('Price before tax').fill('abc');
+    await page.getByRole('button', { name: 'Save ingredient' }).last().click();
+    await page.getByText('Name the ingredient.').waitFor();
+    await page.getByText(/Enter a plain decimal number/).first().waitFor();
+    await shot(page, 'ingredient-new-errors');
+
+    // A preparation: the live batch cost equals the saved one.
+    const { preparations } = await api<{ preparations: { id: string; name: string; batchCost: string; unitCost: string }[] }>(page, '/api/preparations');
+    await page.goto(`${s.url}/preparations`);
+    await page.locator('tbody tr').first().waitFor();
+    await shot(page, 'preparations');
+    const chai = preparations.find((p) => p.name === 'Chai concentrate')!;
+    await page.goto(`${s.url}/preparations/${chai.id}`);
+    const batch = page.locator('[data-figure="batch"]');
+    await batch.waitFor();
+    expect(await batch.textContent()).toBe(formatMoney(chai.batchCost, currency, { detail: true, locale }));
+    expect(await page.locator('[data-figure="unit"]').textContent()).toBe(formatMoney(chai.unitCost, currency, { detail: true, locale }));
+    await shot(page, 'preparation');
+
+    // Cup sizes and the pricing policy, with the tax caution.
+    await page.goto(`${s.url}/pricing`);
+    await page.getByText(/Confirm your rates and treatment with your tax authority or an accountant/).waitFor();
+    await page.getByRole('table', { name: 'Cup sizes' }).waitFor();
+    await shot(page, 'pricing');
+
+    // Phone width: the menu costing table scrolls inside its own box.
+    await page.setViewportSize({ width: 390, height: 844 });
+    await page.goto(`${s.url}/menu-costing`);
+    await page.locator('tbody tr').first().waitFor();
+    await shot(page, 'menu-costing-phone');
+  } finally {
+    await page.close();
+  }
+}, 120_000);

@@ -12,5 +12,5 @@ export const ingredientQueryOptions = (id: string) =>
   queryOptions({ queryKey: [...costingKey, 'ingredients', id] as const, queryFn: () => getIngredient(id) });
 
 export function useIngredient(id: string) {
-  return useQuery(ingredientQueryOptions(id));
+  return useQuery({ ...ingredientQueryOptions(id), enabled: id !== '' });
 }

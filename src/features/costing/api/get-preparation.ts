@@ -12,5 +12,5 @@ export const preparationQueryOptions = (id: string) =>
   queryOptions({ queryKey: [...costingKey, 'preparations', id] as const, queryFn: () => getPreparation(id) });
 
 export function usePreparation(id: string) {
-  return useQuery(preparationQueryOptions(id));
+  return useQuery({ ...preparationQueryOptions(id), enabled: id !== '' });
 }

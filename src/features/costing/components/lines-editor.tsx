@@ -169,14 +169,14 @@ export function LinesEditor<T extends FieldValues>({ control, register, setValue
                   {e?.quantity?.message ?? e?.unit?.message}
                 </p>
               )}
-              <div className="mt-2 flex flex-wrap items-center justify-between gap-2">
-                <p className="text-sm text-muted">
+              <div className="mt-2 flex items-center justify-between gap-2">
+                <p className="whitespace-nowrap text-sm text-muted">
                   Line cost{' '}
                   <span className="font-medium tabular-nums text-ink" data-line-cost>
                     {cost ? formatMoney(cost, currency, { detail: true }) : '—'}
                   </span>
                 </p>
-                <div className="flex gap-1">
+                <div className="flex shrink-0 gap-0.5">
                   <Button variant="quiet" size="sm" disabled={disabled || j === 0} onClick={() => move(j, j - 1)} aria-label={`Move line ${j + 1} up`}>
                     ↑
                   </Button>

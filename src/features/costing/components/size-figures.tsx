@@ -50,24 +50,35 @@ export function SizeFigures({ cost, suggestedPrice, atSuggested, atCurrent, curr
       <div className={row}>
         <dt className="text-muted">Margin at suggested</dt>
         <dd className={fig} data-figure="margin-suggested">
-          {formatPct(atSuggested.marginPct)} · profit {formatMoney(atSuggested.profit, currency)}
+          {formatPct(atSuggested.marginPct)}
         </dd>
       </div>
       <div className={row}>
-        <dt className="text-muted">Margin at current price</dt>
-        <dd className={`${fig} flex flex-col items-end gap-1`} data-figure="margin-current" data-value={atCurrent?.marginPct ?? ''}>
-          {atCurrent ? (
-            <>
-              <span>
-                {formatPct(atCurrent.marginPct)} · profit {formatMoney(atCurrent.profit, currency)}
-              </span>
-              <MarginMark marginPct={atCurrent.marginPct} targetPct={targetPct} />
-            </>
-          ) : (
-            <span className="font-normal text-muted">enter a price</span>
-          )}
-        </dd>
+        <dt className="text-muted">Profit per cup at suggested</dt>
+        <dd className={fig}>{formatMoney(atSuggested.profit, currency)}</dd>
       </div>
+      {atCurrent ? (
+        <>
+          <div className={row}>
+            <dt className="text-muted">Margin at menu price</dt>
+            <dd className={fig} data-figure="margin-current" data-value={atCurrent.marginPct ?? ''}>
+              {formatPct(atCurrent.marginPct)}
+            </dd>
+          </div>
+          <div className={row}>
+            <dt className="text-muted">Profit per cup at menu price</dt>
+            <dd className={fig}>{formatMoney(atCurrent.profit, currency)}</dd>
+          </div>
+          <div className="flex justify-end py-1.5">
+            <MarginMark marginPct={atCurrent.marginPct} targetPct={targetPct} />
+          </div>
+        </>
+      ) : (
+        <div className={row}>
+          <dt className="text-muted">Margin at menu price</dt>
+          <dd className="text-right text-muted">enter a menu price</dd>
+        </div>
+      )}
     </dl>
   );
 }
