@@ -3,7 +3,7 @@ import { ALLERGEN_CAUTION } from '../../src/shared/allergens';
 import { writeLineCost } from '../../src/shared/costing';
 import { dec } from '../../src/shared/decimal';
 import { writeCost, writeMoney, writePercent } from '../../src/shared/money';
-import { exactPriceFigures, parsePolicy, priceFigures, suggestPrice } from '../../src/shared/pricing';
+import { exactMarginPct, parsePolicy, priceFigures, suggestPrice, type ParsedPolicy } from '../../src/shared/pricing';
 import { UNITS, isUnitCode } from '../../src/shared/units';
 import { notFound } from '../errors';
 import { loadMenuRows, type BuildLineRow, type DrinkSizeRow, type MenuRows } from './cost-model.repo';
@@ -65,25 +65,34 @@ export function menuCostingFrom(loaded: LoadedCostModel, rows: MenuRows) {
   const { currency } = loaded;
   const linesBySize = groupBy(rows.lines, (l) => l.drink_size_id);
   const sizesByDrink = groupBy(rows.sizes, (s) => s.drink_id);
+  // A menu has a handful of categories: read each one's policy once, not once per drink.
+  const policies = new Map<string, { parsed: ParsedPolicy; targetMarginPct: string }>();
+  const policyOf = (category: string) => {
+    let hit = policies.get(category);
+    if (!hit) {
+      const policy = loaded.policyFor(category);
+      policies.set(category, (hit = { parsed: parsePolicy(policy, currency), targetMarginPct: dec(policy.targetMarginPct).toFixed() }));
+    }
+    return hit;
+  };
   const drinks = rows.drinks.map((d) => {
-    const policy = loaded.policyFor(d.category);
-    const parsed = parsePolicy(policy, currency);
+    const { parsed, targetMarginPct } = policyOf(d.category);
     const sizes = (sizesByDrink.get(d.id) ?? []).map((s) => {
       const base = { drinkSizeId: s.id, sizeId: s.size_id, name: s.size_name, currentPrice: s.price === null ? null : writeMoney(s.price, currency) };
       const costed = loaded.costStoredLines(linesBySize.get(s.id) ?? []);
       if (!costed.ok) return { ...base, cost: null, marginPct: null, suggestedPrice: null, belowTarget: false, problem: costed.problem };
-      const at = s.price === null ? null : exactPriceFigures(s.price, costed.cost, parsed);
+      const margin = s.price === null ? null : exactMarginPct(s.price, costed.cost, parsed);
       return {
         ...base,
         cost: writeCost(costed.cost),
-        marginPct: at?.marginPct ? writePercent(at.marginPct) : null,
-        suggestedPrice: suggestPrice(costed.cost, policy, currency),
+        marginPct: margin ? writePercent(margin) : null,
+        suggestedPrice: suggestPrice(costed.cost, parsed, currency),
         // Compared unrounded: 71.996 % is below a 72 % target even though it is written "72.00".
-        belowTarget: Boolean(at?.marginPct && at.marginPct.lt(parsed.margin)),
+        belowTarget: Boolean(margin && margin.lt(parsed.margin)),
         problem: null,
       };
     });
-    return { id: d.id, name: d.name, category: d.category, temperature: d.temperature, targetMarginPct: dec(policy.targetMarginPct).toFixed(), sizes };
+    return { id: d.id, name: d.name, category: d.category, temperature: d.temperature, targetMarginPct, sizes };
   });
   return { currency, asOf: loaded.asOf, drinks };
 }

@@ -127,9 +127,21 @@ export interface LinesCost {
   cost: Dec;
 }
 
+/** One line unit of an item: base quantity in one of that unit, and the cost of one of that unit. */
+interface PerUnit {
+  readonly factor: Dec;
+  readonly cost: Dec;
+  /**
+   * Lines of this item and unit already costed, by their quantity string (checked when first
+   * seen). A menu repeats the same few quantities thousands of times, and a costed line is
+   * immutable, so it is shared instead of being multiplied out again.
+   */
+  readonly byQuantity: Map<string, CostedLine>;
+}
+
 interface ModelItem extends CostedItem {
-  /** Per line unit: base quantity in one of that unit, and the cost of one of that unit. */
-  readonly perUnit: Map<string, { factor: Dec; cost: Dec } | string>;
+  /** Per line unit: its factor and cost, or why the unit is refused for this item. */
+  readonly perUnit: Map<string, PerUnit | string>;
 }
 
 interface InternalModel extends CostModel {
@@ -220,14 +232,22 @@ function ingredientItem(ing: IngredientInput, i: number, errors: FieldErrors): M
  * measure resolving to its quantity and unit first, mass ↔ volume through the density.
  * Returns a refusal message for the line's unit, or the costed line.
  */
-function costOne(item: ModelItem, quantity: Dec, unit: string): LineCost | string {
+function costOne(item: ModelItem, quantity: Dec, quantityText: string, unit: string): LineCost | string {
   let per = item.perUnit.get(unit);
   if (per === undefined) {
     per = unitFactor(item, unit);
     item.perUnit.set(unit, per);
   }
   if (typeof per === 'string') return per;
-  return new CostedLine(item.key, item.baseUnit, quantity.times(per.cost), quantity, per.factor);
+  const line = new CostedLine(item.key, item.baseUnit, quantity.times(per.cost), quantity, per.factor);
+  per.byQuantity.set(quantityText, line);
+  return line;
+}
+
+/** The line of `item` costed before with this very quantity string and unit, if any. */
+function costedBefore(item: ModelItem, quantity: unknown, unit: string): CostedLine | undefined {
+  const per = item.perUnit.get(unit);
+  return per === undefined || typeof per === 'string' ? undefined : per.byQuantity.get(quantity as string);
 }
 
 /** A line's base quantity is worked out only when asked for: totals for a whole menu do not need it. */
@@ -247,7 +267,7 @@ class CostedLine implements LineCost {
   }
 }
 
-function unitFactor(item: ModelItem, unit: string): { factor: Dec; cost: Dec } | string {
+function unitFactor(item: ModelItem, unit: string): PerUnit | string {
   try {
     let factor: Dec;
     if (isUnitCode(unit)) factor = conversionFactor(unit, item.baseUnit, item.density);
@@ -256,7 +276,7 @@ function unitFactor(item: ModelItem, unit: string): { factor: Dec; cost: Dec } |
       if (!m) return `Unknown unit or measure "${unit}" for ${item.key}.`;
       factor = m.quantity.times(conversionFactor(m.unit, item.baseUnit, item.density));
     }
-    return { factor, cost: factor.times(item.unitCost) };
+    return { factor, cost: factor.times(item.unitCost), byQuantity: new Map() };
   } catch (e) {
     if (!(e instanceof UnitConversionError)) throw e;
     return `${item.key}: ${e.message}`;
@@ -265,12 +285,23 @@ function unitFactor(item: ModelItem, unit: string): { factor: Dec; cost: Dec } |
 
 function costLinesInto(model: InternalModel, lines: readonly LineInput[], path: string, errors: FieldErrors): LinesCost | null {
   const out: LineCost[] = [];
-  let total = new D(0);
+  // Unset until the first line: 0 + x is x (a line cost has at most the precision's digits),
+  // so the sum starts from the first line's cost without an addition.
+  let total: Dec | null = null;
   let ok = true;
   (lines ?? []).forEach((line, j) => {
+    const known = model.items.get(line?.item);
+    // Hot path: the same item, quantity and unit were checked and costed before (the quantity
+    // string is a key only once it was read as a positive decimal), so nothing to parse again.
+    const hit = known && costedBefore(known, line.quantity, line.unit);
+    if (hit) {
+      out.push(hit);
+      total = total === null ? hit.cost : total.plus(hit.cost);
+      return;
+    }
     const at = `${path}[${j}]`;
     const quantity = readDecimal(line?.quantity, rules.positive, `${at}.quantity`, errors);
-    const item = model.items.get(line?.item);
+    const item = known;
     if (!item) {
       ok = false;
       if (!model.broken.has(line?.item)) errors.add(`${at}.item`, `Unknown item "${line?.item}".`);
@@ -280,16 +311,16 @@ function costLinesInto(model: InternalModel, lines: readonly LineInput[], path: 
       ok = false;
       return;
     }
-    const costed = costOne(item, quantity, line.unit);
+    const costed = costOne(item, quantity, line.quantity, line.unit);
     if (typeof costed === 'string') {
       ok = false;
       errors.add(`${at}.unit`, costed);
       return;
     }
     out.push(costed);
-    total = total.plus(costed.cost);
+    total = total === null ? costed.cost : total.plus(costed.cost);
   });
-  return ok ? { lines: out, cost: total } : null;
+  return ok ? { lines: out, cost: total ?? new D(0) } : null;
 }
 
 function buildInto(ingredients: readonly IngredientInput[], preparations: readonly PreparationInput[], errors: FieldErrors): InternalModel {

@@ -30,7 +30,9 @@ export const SNAP_DIGITS = 40;
  * without being on it.
  */
 export function snap(value: Decimal): Decimal {
-  return value.toSignificantDigits(SNAP_DIGITS, D.ROUND_HALF_UP);
+  // A value with no more digits than that (a price, a stored quantity) is already what rounding
+  // would give: skip the copy, which write-out would otherwise make for every figure.
+  return value.sd() <= SNAP_DIGITS ? value : value.toSignificantDigits(SNAP_DIGITS, D.ROUND_HALF_UP);
 }
 
 const DECIMAL_PATTERN = /^-?\d+(\.\d+)?$/;

@@ -41,11 +41,32 @@ export function roundHalfUp(value: DecimalInput, places: number): Dec {
   return snap(dec(value)).toDecimalPlaces(places, D.ROUND_HALF_UP);
 }
 
+const writtenMemo = new Map<number, Map<string, string>>();
+const WRITTEN_MEMO_LIMIT = 20_000;
+
 /** {@link roundHalfUp} written with exactly `places` decimals, e.g. "0.7102", "75.30". */
 export function writeFixed(value: DecimalInput, places: number): string {
-  const rounded = snap(dec(value)).toDecimalPlaces(places, D.ROUND_HALF_UP);
+  if (typeof value !== 'string') return writeDecimalFixed(value, places);
+  // Stored figures (prices, quantities) arrive as the same few strings over and over.
+  let memo = writtenMemo.get(places);
+  if (!memo) writtenMemo.set(places, (memo = new Map()));
+  let out = memo.get(value);
+  if (out === undefined) {
+    if (memo.size >= WRITTEN_MEMO_LIMIT) memo.clear();
+    out = writeDecimalFixed(value, places);
+    memo.set(value, out);
+  }
+  return out;
+}
+
+const NEGATIVE_ZERO = /^-0(\.0*)?$/;
+
+function writeDecimalFixed(value: DecimalInput, places: number): string {
+  // toFixed(places, ROUND_HALF_UP) rounds exactly as toDecimalPlaces(places, ROUND_HALF_UP)
+  // does (decimal.js runs the same finalise step), so one step instead of two.
+  const out = snap(dec(value)).toFixed(places, D.ROUND_HALF_UP);
   // decimal.js keeps the sign of a negative that rounds to zero ("-0.00"); a figure never shows it.
-  return (rounded.isZero() ? rounded.abs() : rounded).toFixed(places);
+  return out.charCodeAt(0) === 45 && NEGATIVE_ZERO.test(out) ? out.slice(1) : out;
 }
 
 /** A money amount written to the currency's minor units, halves up: "2.88" GBP, "288" JPY. */

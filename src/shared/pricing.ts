@@ -29,6 +29,8 @@ export interface PricingPolicy {
   rounding: RoundingMode;
 }
 
+const HUNDRED = dec('100');
+
 /** A policy read into decimals once. */
 export interface ParsedPolicy {
   readonly margin: Dec;
@@ -37,6 +39,10 @@ export interface ParsedPolicy {
   readonly step: Dec | null;
   readonly rounding: RoundingMode;
   readonly currency: string;
+  /** 100 + tax rate when tax is inclusive, else 100: gross per 100 of net, worked out once. */
+  readonly grossPer100: Dec;
+  /** 100 − target margin: the net share left for cost, worked out once. */
+  readonly costShare: Dec;
 }
 
 /**
@@ -66,7 +72,8 @@ export function readPolicy(policy: PricingPolicy, currency: string, errors: Fiel
     }
   }
   if (Object.keys(errors.fields).length > before || !margin || !taxRate) return null;
-  return { margin, inclusive: taxMode === 'inclusive', taxRate, step, rounding, currency };
+  const inclusive = taxMode === 'inclusive';
+  return { margin, inclusive, taxRate, step, rounding, currency, grossPer100: inclusive ? taxRate.plus(HUNDRED) : HUNDRED, costShare: HUNDRED.minus(margin) };
 }
 
 const parsedCache = new WeakMap<PricingPolicy, Map<string, ParsedPolicy>>();
@@ -85,12 +92,6 @@ export function parsePolicy(policy: PricingPolicy, currency: string): ParsedPoli
   return parsed as ParsedPolicy;
 }
 
-const HUNDRED = dec('100');
-
-/** Gross price per 100 of net: 100 + tax rate when tax is inclusive, else 100. */
-function grossPer100(p: ParsedPolicy): Dec {
-  return p.inclusive ? p.taxRate.plus(100) : HUNDRED;
-}
 
 /**
  * The unrounded price that gives exactly the target margin on `cost`.
@@ -102,7 +103,7 @@ function grossPer100(p: ParsedPolicy): Dec {
  */
 export function grossForTargetMargin(cost: DecimalInput, policy: PricingPolicy | ParsedPolicy, currency?: string): Dec {
   const p = asParsed(policy, currency);
-  return dec(cost).times(grossPer100(p)).div(HUNDRED.minus(p.margin));
+  return dec(cost).times(p.grossPer100).div(p.costShare);
 }
 
 /**
@@ -120,8 +121,8 @@ export function roundPrice(gross: DecimalInput, policy: PricingPolicy | ParsedPo
  * policy ({@link roundPrice}), written to the currency's minor units. With `up` the margin at
  * this price is never below the target.
  */
-export function suggestPrice(cost: DecimalInput, policy: PricingPolicy, currency: string): string {
-  const p = parsePolicy(policy, currency);
+export function suggestPrice(cost: DecimalInput, policy: PricingPolicy | ParsedPolicy, currency: string): string {
+  const p = asParsed(policy, currency);
   return writeMoney(roundPrice(grossForTargetMargin(cost, p), p), currency);
 }
 
@@ -169,9 +170,8 @@ export function exactPriceFigures(price: DecimalInput, cost: DecimalInput, polic
   const p = asParsed(policy, currency);
   const gross = dec(price);
   const c = dec(cost);
-  const net = p.inclusive ? gross.times(100).div(p.taxRate.plus(100)) : gross;
-  // (net − cost) ÷ net × 100 = 100 − cost ÷ net × 100 exactly; one division instead of two.
-  const costPct = net.isZero() ? null : c.times(100).div(net);
+  const net = p.inclusive ? netOf(gross, price, p) : gross;
+  const costPct = net.isZero() ? null : costPctOf(c, net);
   return {
     price: gross,
     netPrice: net,
@@ -180,6 +180,43 @@ export function exactPriceFigures(price: DecimalInput, cost: DecimalInput, polic
     costPct,
     profit: net.minus(c),
   };
+}
+
+/** cost ÷ net × 100; (net − cost) ÷ net × 100 = 100 − this exactly, so one division gives both. */
+function costPctOf(cost: Dec, net: Dec): Dec {
+  return cost.times(HUNDRED).div(net);
+}
+
+/**
+ * The margin % alone of {@link exactPriceFigures} (same steps, same value), for callers that
+ * need nothing else of a price, such as a whole menu's below-target marks.
+ */
+export function exactMarginPct(price: DecimalInput, cost: DecimalInput, policy: PricingPolicy | ParsedPolicy, currency?: string): Dec | null {
+  const p = asParsed(policy, currency);
+  const gross = dec(price);
+  const net = p.inclusive ? netOf(gross, price, p) : gross;
+  return net.isZero() ? null : HUNDRED.minus(costPctOf(dec(cost), net));
+}
+
+const netMemo = new WeakMap<ParsedPolicy, Map<string, Dec>>();
+const NET_MEMO_LIMIT = 5_000;
+
+/**
+ * Net of a tax-inclusive price: price × 100 ÷ (100 + tax). Memoised per policy for prices given
+ * as strings: a menu has a few dozen distinct prices over hundreds of cup sizes, and the
+ * division is the dearest step of a price's figures.
+ */
+function netOf(gross: Dec, price: DecimalInput, p: ParsedPolicy): Dec {
+  if (typeof price !== 'string') return gross.times(HUNDRED).div(p.grossPer100);
+  let memo = netMemo.get(p);
+  if (!memo) netMemo.set(p, (memo = new Map()));
+  let net = memo.get(price);
+  if (net === undefined) {
+    if (memo.size >= NET_MEMO_LIMIT) memo.clear();
+    net = gross.times(HUNDRED).div(p.grossPer100);
+    memo.set(price, net);
+  }
+  return net;
 }
 
 /** Writes {@link ExactPriceFigures}: money to the currency's minor units, percentages to 2 places, halves up. */
