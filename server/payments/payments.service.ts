@@ -108,6 +108,10 @@ export async function applyIntentIn(trx: Knex.Transaction, paymentId: string, pi
     return { status: 'succeeded', refundNeeded: order.status === 'cancelled' };
   }
   if (final) return { status: p.status, refundNeeded: false };
+  // Events arrive in any order: a failed attempt is never re-confirmed, so only a success
+  // (handled above) can move it; an earlier snapshot (e.g. payment_intent.created) must not.
+  if (p.status === 'failed') return { status: 'failed', refundNeeded: false };
+  const unconfirmed = pi.status === 'requires_payment_method' && !pi.last_payment_error;
 
   if (pi.status === 'requires_action') {
     if (p.status !== 'requires_action') {
@@ -116,17 +120,17 @@ export async function applyIntentIn(trx: Knex.Transaction, paymentId: string, pi
     }
     return { status: 'requires_action', refundNeeded: false };
   }
-  if (pi.status === 'requires_payment_method' || pi.status === 'canceled') {
+  if ((pi.status === 'requires_payment_method' && !unconfirmed) || pi.status === 'canceled') {
     const err = pi.last_payment_error;
     const code = err?.decline_code ?? err?.code ?? (pi.status === 'canceled' ? 'canceled' : 'card_declined');
     const words = pi.status === 'canceled' ? 'The payment was cancelled before it completed.' : declineWords(code, err?.message);
-    if (p.status !== 'failed') {
-      await updatePayment(trx, p.id, { status: 'failed', intent_id: pi.id, failure_code: code, message: words, next_action_url: null });
-      await addEvent(trx, order.business_id, order.id, actorId, 'payment_failed', `Payment not taken: ${words}`, { intentId: pi.id, code });
-    }
+    await updatePayment(trx, p.id, { status: 'failed', intent_id: pi.id, failure_code: code, message: words, next_action_url: null });
+    await addEvent(trx, order.business_id, order.id, actorId, 'payment_failed', `Payment not taken: ${words}`, { intentId: pi.id, code });
     return { status: 'failed', refundNeeded: false };
   }
-  // processing, requires_confirmation, requires_capture: not settled yet.
+  // processing, requires_confirmation, requires_capture, not yet confirmed: not settled. Only a
+  // pending attempt becomes unknown; one awaiting the cardholder stays as it is.
+  if (p.status === 'requires_action') return { status: 'requires_action', refundNeeded: false };
   if (p.status !== 'unknown') await updatePayment(trx, p.id, { status: 'unknown', intent_id: pi.id, message: UNKNOWN_MESSAGE });
   return { status: 'unknown', refundNeeded: false };
 }

@@ -156,3 +156,21 @@ describe('the payments service going away', () => {
     }
   });
 });
+
+describe('events out of order', () => {
+  it('an earlier snapshot of a declined intent, delivered late, leaves the attempt failed', async () => {
+    const w = await makeOrderWorld(ctx);
+    const id = await placedOrder(w);
+    const declined = await w.owner.post(`/api/purchase-orders/${id}/pay`, { paymentMethodId: 'pm_card_visa_chargeDeclinedInsufficientFunds' });
+    expect(declined.status).toBe(402);
+    const [intent] = await intentsFor(ctx.stripe, id);
+    // What payment_intent.created carried before confirmation: no outcome yet.
+    const early = { ...intent, status: 'requires_confirmation', last_payment_error: null };
+    const payload = JSON.stringify({ id: `evt_late_${Date.now()}`, object: 'event', type: 'payment_intent.created', data: { object: early }, created: Math.floor(Date.now() / 1000), livemode: false, api_version: null, pending_webhooks: 1, request: { id: null, idempotency_key: null } });
+    const res = await postHook(payload, signed(payload));
+    expect(res.status).toBe(200);
+    const o = (await w.owner.get(`/api/purchase-orders/${id}`)).body;
+    expect(o.status).toBe('placed');
+    expect(o.payment).toMatchObject({ status: 'failed', code: 'insufficient_funds', confirming: false });
+  });
+});
