@@ -19,7 +19,9 @@ export interface RepricingBench {
  * The ingredient is the one used by the most build lines, the worst case for the preview.
  */
 export async function benchRepricing(db: Knex, businessId: string, runs = 20): Promise<RepricingBench> {
-  const top = await db('build_lines').where({ business_id: businessId }).whereNotNull('ingredient_id').groupBy('ingredient_id').orderByRaw('count(*) desc').first('ingredient_id');
+  // Ties broken by name, so every run picks the same ingredient (ids are random).
+  const top = await db('build_lines as bl').join('ingredients as i', 'i.id', 'bl.ingredient_id').where('bl.business_id', businessId)
+    .groupBy('bl.ingredient_id', 'i.name').orderByRaw('count(*) desc, i.name').first('bl.ingredient_id as ingredient_id');
   const ingredientId = top!.ingredient_id as string;
   const price = await db('pack_prices as pp').join('packs as p', 'p.id', 'pp.pack_id').where('p.ingredient_id', ingredientId).orderBy('pp.effective_from', 'desc').first('pp.price');
   const newPrice = (Number(price!.price) * 1.08).toFixed(2); // a bench input, not a computed figure
