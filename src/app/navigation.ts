@@ -34,6 +34,7 @@ export const navigation: readonly NavEntry[] = [
   entry(paths.pricing, 'Sizes and pricing', ['owner', 'manager'], 'Your cup sizes, target margin, tax on menu prices and price rounding.'),
   entry(paths.repricing, 'Repricing', ['owner', 'manager', 'bookkeeper'], "See what a supplier's price rise does to every drink, try scenarios, apply new prices."),
   entry(paths.priceList, 'Price list', everyone, 'The prices for the counter with allergen marks, to print or download.'),
+  entry(paths.monthEnd, 'Month end', ['owner', 'manager', 'bookkeeper'], 'Cost of goods for a month, actual against theoretical, CSV exports and closing the month.'),
 ];
 
 export function entriesFor(role: Role): NavEntry[] {

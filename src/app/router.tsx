@@ -13,6 +13,7 @@ import { SettingsRoute } from './routes/settings';
 import { SignInRoute } from './routes/sign-in';
 import { SignUpRoute } from './routes/sign-up';
 import { TeamRoute } from './routes/team';
+import { MonthEndRoute } from './routes/month-end';
 import { PriceHistoryRoute } from './routes/price-history';
 import { PriceListRoute } from './routes/price-list';
 import { RepricingRoute } from './routes/repricing';
@@ -65,6 +66,7 @@ export const router = createBrowserRouter([
           { path: paths.repricing.path, element: <RepricingRoute /> },
           { path: paths.priceList.path, element: <PriceListRoute /> },
           { path: paths.priceHistory.path, element: <PriceHistoryRoute /> },
+          { path: paths.monthEnd.path, element: <MonthEndRoute /> },
           { path: '*', element: <NotFoundRoute /> },
         ],
       },

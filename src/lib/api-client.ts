@@ -32,6 +32,11 @@ export function setCsrfToken(token: string | null): void {
   csrfToken = token;
 }
 
+/** For requests made outside `request` (an upload through XMLHttpRequest, for its progress events). */
+export function getCsrfToken(): string | null {
+  return csrfToken;
+}
+
 type Method = 'GET' | 'POST' | 'PUT' | 'PATCH' | 'DELETE';
 
 interface RequestOptions {

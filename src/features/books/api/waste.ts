@@ -1,0 +1,41 @@
+import { queryOptions, useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
+import { apiClient } from '../../../lib/api-client';
+import { paths } from '../../../lib/paths';
+import { booksKey } from './keys';
+import type { WasteEntry } from './types';
+
+export const wasteQueryOptions = (siteId: string | undefined, month: string) =>
+  queryOptions({
+    queryKey: [...booksKey, 'waste', siteId, month] as const,
+    queryFn: () => apiClient.get<{ entries: WasteEntry[]; total: string; currency: string }>(paths.api.waste({ siteId, month })),
+    enabled: Boolean(siteId),
+  });
+
+export function useWaste(siteId: string | undefined, month: string) {
+  return useQuery(wasteQueryOptions(siteId, month));
+}
+
+export interface WasteInput {
+  siteId: string;
+  occurredOn: string;
+  item: { kind: 'ingredient' | 'preparation' | 'drinkSize'; id: string };
+  quantity: string;
+  unit: string | null;
+  reason: string;
+}
+
+export function useRecordWaste() {
+  const queryClient = useQueryClient();
+  return useMutation({
+    mutationFn: (input: WasteInput) => apiClient.post<{ entry: { id: string } }>(paths.api.waste(), input),
+    onSuccess: () => queryClient.invalidateQueries({ queryKey: booksKey }),
+  });
+}
+
+export function useDeleteWaste() {
+  const queryClient = useQueryClient();
+  return useMutation({
+    mutationFn: (id: string) => apiClient.delete(paths.api.wasteEntry(id)),
+    onSuccess: () => queryClient.invalidateQueries({ queryKey: booksKey }),
+  });
+}
