@@ -27,6 +27,7 @@ export const navigation: readonly NavEntry[] = [
   entry(paths.team, 'Team', ['owner'], 'Invite people, choose their roles and remove access.'),
   entry(paths.settings, 'Settings', ['owner'], 'Business name, country, currency, tax on menu prices and your sites.'),
   entry(paths.drinks, 'Drinks', ['owner', 'manager'], 'Build each drink per cup size and see its cost per cup as you type.'),
+  entry(paths.modifiers, 'Modifiers', ['owner', 'manager'], 'Add-ons and swaps costed per cup size, with the upcharge that keeps your margin.'),
   entry(paths.ingredients, 'Ingredients', ['owner', 'manager'], 'What you buy, pack by pack, and its cost per gram, millilitre or measure.'),
   entry(paths.preparations, 'Preparations', ['owner', 'manager'], 'Syrups, concentrates and cold brew made in house, costed per batch.'),
   entry(paths.menuCosting, 'Menu costing', ['owner', 'manager', 'bookkeeper'], 'Cost, margin and suggested price of every drink in every size.'),

@@ -21,6 +21,8 @@ import { CardRoute } from './routes/card';
 import { CardsRoute } from './routes/cards';
 import { DrinkEditorRoute } from './routes/drink-editor';
 import { DrinksRoute } from './routes/drinks';
+import { ModifierRoute } from './routes/modifier';
+import { ModifiersRoute } from './routes/modifiers';
 import { MenuCostingRoute } from './routes/menu-costing';
 import { IngredientRoute } from './routes/ingredient';
 import { IngredientsRoute } from './routes/ingredients';
@@ -53,6 +55,9 @@ export const router = createBrowserRouter([
           { path: paths.drinks.path, element: <DrinksRoute /> },
           { path: paths.newDrink.path, element: <DrinkEditorRoute /> },
           { path: paths.drink.path, element: <DrinkEditorRoute /> },
+          { path: paths.modifiers.path, element: <ModifiersRoute /> },
+          { path: paths.newModifier.path, element: <ModifierRoute /> },
+          { path: paths.modifier.path, element: <ModifierRoute /> },
           { path: paths.menuCosting.path, element: <MenuCostingRoute /> },
           { path: paths.cards.path, element: <CardsRoute /> },
           { path: paths.card.path, element: <CardRoute /> },

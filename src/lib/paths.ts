@@ -37,6 +37,9 @@ export const paths = {
   pricing: { path: '/pricing', href: () => '/pricing' },
   cards: { path: '/cards', href: () => '/cards' },
   card: { path: '/cards/:drinkId', href: (id: string) => `/cards/${encodeURIComponent(id)}` },
+  modifiers: { path: '/modifiers', href: () => '/modifiers' },
+  newModifier: { path: '/modifiers/new', href: () => '/modifiers/new' },
+  modifier: { path: '/modifiers/:modifierId', href: (id: string) => `/modifiers/${encodeURIComponent(id)}` },
 
   // Repricing.
   repricing: { path: '/repricing', href: () => '/repricing' },
@@ -109,6 +112,8 @@ export const paths = {
     cards: () => '/api/cards',
     menuCosting: () => '/api/menu/costing',
     pricingPolicy: () => '/api/pricing-policy',
+    modifiers: () => '/api/modifiers',
+    modifier: (id: string) => `/api/modifiers/${encodeURIComponent(id)}`,
     // Repricing.
     repricePreview: () => '/api/reprice/preview',
     repriceApply: () => '/api/reprice/apply',

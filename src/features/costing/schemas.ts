@@ -96,3 +96,24 @@ export type PolicyFormValues = z.input<typeof policyFormSchema>;
 export function bracketToDots(path: string): string {
   return path.replace(/\[(\d+)\]/g, '.$1');
 }
+
+export const modifierFormSchema = z
+  .object({
+    name: z.string().trim().min(1, 'Name the modifier, e.g. Extra shot.').max(120),
+    kind: z.enum(['add', 'swap'], { error: 'Choose an add-on or a swap.' }),
+    upcharge: optionalDecimal(rules.nonNegative),
+    sizes: z.array(z.object({ sizeId: z.string(), name: z.string(), volumeMl: z.string(), add: z.array(looseLine), remove: z.array(looseLine) })),
+  })
+  .superRefine((v, ctx) => {
+    const counted = v.sizes.reduce((n, s) => n + s.add.length + (v.kind === 'swap' ? s.remove.length : 0), 0);
+    if (counted === 0) ctx.addIssue({ code: 'custom', path: ['sizes'], message: 'Add at least one line for one cup size.' });
+    v.sizes.forEach((s, i) => {
+      const actions = v.kind === 'swap' ? (['remove', 'add'] as const) : (['add'] as const);
+      for (const action of actions)
+        s[action].forEach((l, j) => {
+          const r = line.safeParse(l);
+          if (!r.success) for (const issue of r.error.issues) ctx.addIssue({ code: 'custom', path: ['sizes', i, action, j, ...issue.path], message: issue.message });
+        });
+    });
+  });
+export type ModifierFormValues = z.input<typeof modifierFormSchema>;

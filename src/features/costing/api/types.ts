@@ -213,3 +213,31 @@ export interface PricingPolicyBody {
   overrides: PolicyOverride[];
   caution: string;
 }
+
+export type ModifierKind = 'add' | 'swap';
+
+/** A modifier's figures for one cup size: costDelta = cost of what it puts in − cost of what it takes out. */
+export interface ModifierSize {
+  sizeId: string;
+  name: string;
+  lines: (LineOut & { action: 'add' | 'remove' })[];
+  costDelta: string | null;
+  suggestedUpcharge: string | null;
+  problem: string | null;
+}
+
+export interface Modifier {
+  id: string;
+  name: string;
+  kind: ModifierKind;
+  upcharge: string | null;
+  sizes: ModifierSize[];
+  allergens: AllergenCode[];
+}
+
+export interface ModifierIn {
+  name: string;
+  kind: ModifierKind;
+  upcharge?: string | null;
+  lines: (LineIn & { sizeId: string; action: 'add' | 'remove' })[];
+}

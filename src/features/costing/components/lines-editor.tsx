@@ -45,7 +45,7 @@ function unitForItem(item: LineItem | undefined, unit: string): string {
  * The lines of a build or a preparation: item, quantity with its unit or measure
  * beside it, and (when costed) each line's cost to 4 decimals.
  */
-export function LinesEditor<T extends FieldValues>({ control, register, setValue, getValues, name, items, errors, lineCosts, currency, idPrefix, disabled }: {
+export function LinesEditor<T extends FieldValues>({ control, register, setValue, getValues, name, items, errors, lineCosts, currency, idPrefix, disabled, emptyText = 'No lines yet. Add the coffee, milk, syrups and the cup itself.' }: {
   control: Control<T>;
   register: UseFormRegister<T>;
   setValue: UseFormSetValue<T>;
@@ -59,6 +59,8 @@ export function LinesEditor<T extends FieldValues>({ control, register, setValue
   currency: string;
   idPrefix: string;
   disabled?: boolean;
+  /** What an empty list says to do next. */
+  emptyText?: string;
 }) {
   // The generic form type cannot see that `name` holds FormLine[]; the casts stay inside here.
   const { fields, append, remove, move } = useFieldArray({ control, name: name as never });
@@ -68,7 +70,7 @@ export function LinesEditor<T extends FieldValues>({ control, register, setValue
 
   return (
     <div className="flex flex-col gap-3">
-      {fields.length === 0 && <p className="text-sm text-muted">No lines yet. Add the coffee, milk, syrups and the cup itself.</p>}
+      {fields.length === 0 && <p className="text-sm text-muted">{emptyText}</p>}
       <ol className="flex flex-col gap-3">
         {fields.map((f, j) => {
           const line = lines[j] ?? emptyLine();
