@@ -1,4 +1,5 @@
 import type { Knex } from 'knex';
+import type { BuildLineRow } from '../costing/cost-model.repo';
 
 type Db = Knex | Knex.Transaction;
 
@@ -53,11 +54,47 @@ export async function receivedSince(db: Db, businessId: string, siteId: string, 
   return q;
 }
 
-export async function ingredientWasteSince(db: Db, businessId: string, siteId: string, since: Date | null) {
-  const q = db('waste_entries').where({ business_id: businessId, site_id: siteId }).whereNotNull('ingredient_id')
-    .select('ingredient_id', 'quantity', 'unit');
+export interface WasteSinceRow {
+  ingredient_id: string | null;
+  preparation_id: string | null;
+  drink_size_id: string | null;
+  quantity: string;
+  unit: string | null;
+}
+
+/** Waste recorded at the site after `since` (all of it when null): an ingredient, a preparation or cups of a drink size. */
+export async function wasteSince(db: Db, businessId: string, siteId: string, since: Date | null): Promise<WasteSinceRow[]> {
+  const q = db('waste_entries').where({ business_id: businessId, site_id: siteId })
+    .select('ingredient_id', 'preparation_id', 'drink_size_id', 'quantity', 'unit');
   if (since) q.where('created_at', '>', since);
-  return q as Promise<{ ingredient_id: string; quantity: string; unit: string | null }[]>;
+  return q;
+}
+
+/**
+ * Cups sold at the site per drink size, summed in SQL (one GROUP BY: sales lines are many),
+ * days after `afterDay` (all days when null). Only manual days (no import) and lines of
+ * accepted imports count; a pending or discarded import's lines never do.
+ */
+export async function salesByDrinkSizeSince(db: Db, businessId: string, siteId: string, afterDay: string | null): Promise<{ drink_size_id: string; quantity: string }[]> {
+  const q = db('sales_lines as sl').leftJoin('sales_imports as si', 'si.id', 'sl.import_id')
+    .where({ 'sl.business_id': businessId, 'sl.site_id': siteId })
+    .where((w) => w.whereNull('sl.import_id').orWhere('si.status', 'accepted'))
+    .groupBy('sl.drink_size_id')
+    .select('sl.drink_size_id', db.raw('sum(sl.quantity)::text as quantity'));
+  if (afterDay) q.where('sl.sold_on', '>', afterDay);
+  return q;
+}
+
+/** The build lines of these drink sizes (archived drinks included: what was sold was made), with a label for each size. */
+export async function buildsOf(db: Db, businessId: string, drinkSizeIds: readonly string[]) {
+  if (!drinkSizeIds.length) return { lines: [], labels: new Map<string, string>() };
+  const [lines, sizes] = await Promise.all([
+    db('build_lines').where({ business_id: businessId }).whereIn('drink_size_id', drinkSizeIds).orderBy([{ column: 'drink_size_id' }, { column: 'position' }])
+      .select('id', 'drink_size_id', 'position', 'ingredient_id', 'preparation_id', 'quantity', 'unit', 'measure_id') as Promise<BuildLineRow[]>,
+    db('drink_sizes as ds').join('drinks as d', 'd.id', 'ds.drink_id').join('cup_sizes as cs', 'cs.id', 'ds.size_id')
+      .where('ds.business_id', businessId).whereIn('ds.id', drinkSizeIds).select('ds.id', 'd.name as drink', 'cs.name as size'),
+  ]);
+  return { lines, labels: new Map(sizes.map((s: { id: string; drink: string; size: string }) => [s.id, `${s.drink} (${s.size})`])) };
 }
 
 export async function upsertStockItem(db: Db, row: { business_id: string; site_id: string; pack_id: string; par_level: string; reorder_point: string }) {
