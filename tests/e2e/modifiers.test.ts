@@ -111,6 +111,13 @@ test('the owner reviews the oat swap per size, changes its upcharge, and adds a 
       // The live cost of what it adds, from the preview route.
       await expect.poll(() => side.locator('[data-line-cost]').textContent()).not.toBe('—');
     }
+    // With nothing taken out, the extra cost and suggested upcharge are shown as typed.
+    const live: Record<string, [string | null, string | null]> = {};
+    for (const size of sizes) {
+      const box = page.locator(`[data-figures-for="${size.name}"]`);
+      await box.locator('[data-figure="extra-cost"]').waitFor();
+      live[size.name] = [await box.locator('[data-figure="extra-cost"]').textContent(), await box.locator('[data-figure="suggested"]').textContent()];
+    }
     await shot(page, 'new-add-on');
     await page.getByRole('button', { name: 'Save modifier' }).first().click();
     await page.waitForURL((u) => /\/modifiers\/[0-9a-f-]{36}$/.test(u.pathname));
@@ -125,6 +132,9 @@ test('the owner reviews the oat swap per size, changes its upcharge, and adds a 
     const [one, two] = [dec(created.sizes[0].costDelta!), dec(created.sizes[created.sizes.length - 1].costDelta!)];
     expect(two.minus(one.times(2)).abs().lte('0.0001')).toBe(true);
     await expectFigures(page, created, currency, locale);
+    // What the editor showed before saving is what the server works out for the saved modifier.
+    for (const size of created.sizes)
+      expect(live[size.name]).toEqual([formatMoney(size.costDelta!, currency, { detail: true, locale }), formatMoney(size.suggestedUpcharge!, currency, { locale })]);
     await shot(page, 'new-add-on-saved');
 
     await page.goto(`${s.url}/modifiers`);

@@ -10,7 +10,6 @@ import { FormMessage } from '../../../components/ui/form-message';
 import { Input, Select } from '../../../components/ui/input';
 import { useToast } from '../../../components/ui/toast';
 import { isApiError } from '../../../lib/api-client';
-import { formatQuantity } from '../../../lib/format';
 import { paths } from '../../../lib/paths';
 import { ALLERGEN_CAUTION } from '../../../shared/allergens';
 import { useBuildDetails } from '../api/get-build-details';
@@ -21,6 +20,7 @@ import { bracketToDots, drinkFormSchema, type DrinkFormValues } from '../schemas
 import { AllergenSummary } from './allergens';
 import { LinesEditor, type FormLine, type LineErrors } from './lines-editor';
 import { fromLineOut, itemIds, lineItems, planPreview, toLineIn } from './preview-request';
+import { PreviewError, SizeColumns, SizeHeading } from './size-columns';
 import { SizeFigures } from './size-figures';
 import { useDebouncedValue } from './use-debounced-value';
 
@@ -184,13 +184,8 @@ export function DrinkEditor({ drink, sizes, ingredients, preparations, pricing, 
           </p>
         </div>
         {errors.sizes?.message && <FormMessage>{errors.sizes.message}</FormMessage>}
-        {preview.isError && (
-          <FormMessage>
-            The cost could not be worked out: {Object.values(isApiError(preview.error) ? preview.error.fields : {})[0] ?? (preview.error as Error).message}
-          </FormMessage>
-        )}
-        <div className="overflow-x-auto pb-2">
-          <div className="grid gap-4" style={{ gridTemplateColumns: `repeat(${sizes.length}, minmax(17rem, 1fr))` }}>
+        {preview.isError && <PreviewError error={preview.error} />}
+        <SizeColumns count={sizes.length}>
             {defaults.sizes.map((size, i) => {
               const isOffered = watched.sizes?.[i]?.offered ?? false;
               const costed = isOffered ? previewBySize.get(size.name) : undefined;
@@ -201,9 +196,7 @@ export function DrinkEditor({ drink, sizes, ingredients, preparations, pricing, 
               return (
                 <section key={size.sizeId} aria-labelledby={headingId} className="flex flex-col gap-3 rounded-lg border border-rule bg-card p-4" data-size={size.name}>
                   <div className="flex items-start justify-between gap-2">
-                    <h3 id={headingId} className="text-lg font-bold">
-                      {size.name} <span className="text-sm font-normal text-muted tabular-nums">{formatQuantity(size.volumeMl, 'ml')}</span>
-                    </h3>
+                    <SizeHeading id={headingId} name={size.name} volumeMl={size.volumeMl} />
                     <label className="flex items-center gap-2 text-sm text-ink">
                       <input type="checkbox" className="h-4 w-4 accent-copper" disabled={!canEdit} {...register(`sizes.${i}.offered`)} />
                       Offered
@@ -257,8 +250,7 @@ export function DrinkEditor({ drink, sizes, ingredients, preparations, pricing, 
                 </section>
               );
             })}
-          </div>
-        </div>
+        </SizeColumns>
       </section>
 
       {preview.data && (

@@ -10,9 +10,10 @@ import { FormMessage } from '../../../components/ui/form-message';
 import { Input } from '../../../components/ui/input';
 import { useToast } from '../../../components/ui/toast';
 import { isApiError } from '../../../lib/api-client';
-import { formatMoney, formatQuantity } from '../../../lib/format';
+import { formatMoney } from '../../../lib/format';
 import { paths } from '../../../lib/paths';
 import { ALLERGEN_CAUTION } from '../../../shared/allergens';
+import { isDecimalString } from '../../../shared/decimal';
 import { useBuildDetails } from '../api/get-build-details';
 import { usePreviewCosting } from '../api/preview-costing';
 import { useCreateModifier, useDeleteModifier, useReplaceModifier } from '../api/save-modifier';
@@ -22,6 +23,7 @@ import { AllergenSummary } from './allergens';
 import { LinesEditor, type LineErrors } from './lines-editor';
 import { kindLabels } from './modifiers-table';
 import { fromLineOut, itemIds, lineItems, planPreview, toLineIn } from './preview-request';
+import { PreviewError, SizeColumns, SizeHeading } from './size-columns';
 import { UpchargeMark } from './upcharge-mark';
 import { useDebouncedValue } from './use-debounced-value';
 
@@ -114,6 +116,8 @@ export function ModifierEditor({ modifier, sizes, ingredients, preparations, pri
   const costed = new Map((current ? (preview.data?.sizes ?? []) : []).map((s) => [s.name, s]));
   const saved = new Map((modifier?.sizes ?? []).map((s) => [s.sizeId, s]));
   const showSaved = Boolean(modifier) && !formState.isDirty;
+  // Live figures answer what is on screen now, not lines typed a moment ago.
+  const ready = current && JSON.stringify(watched) === JSON.stringify(settled) && !plan.waiting && !preview.isFetching && !details.isFetching;
 
   const onSubmit = handleSubmit(async (values) => {
     setFormError(null);
@@ -178,7 +182,7 @@ export function ModifierEditor({ modifier, sizes, ingredients, preparations, pri
             ))}
           </div>
         </fieldset>
-        <Field label="Menu upcharge" unit={currency} hint="The same for every cup size; leave empty if not charged." error={errors.upcharge?.message}>
+        <Field label="Menu upcharge, every size" unit={currency} error={errors.upcharge?.message}>
           <Input inputMode="decimal" autoComplete="off" disabled={!canEdit} {...register('upcharge')} />
         </Field>
       </Card>
@@ -190,26 +194,28 @@ export function ModifierEditor({ modifier, sizes, ingredients, preparations, pri
           </h2>
           <p className="text-sm text-muted">
             {watched.kind === 'swap' ? 'What it takes out of the build and what it puts in instead. ' : 'What it adds to the build. '}
-            Leave a size empty where it is not offered. Suggested upcharges keep the target margin of {policy.targetMarginPct} %.
+            Leave a size empty where it is not offered, and the upcharge empty if it is not charged. Suggested upcharges keep the target margin of {policy.targetMarginPct} %.
           </p>
         </div>
         {errors.sizes?.message && <FormMessage>{errors.sizes.message}</FormMessage>}
-        {preview.isError && (
-          <FormMessage>
-            The cost could not be worked out: {Object.values(isApiError(preview.error) ? preview.error.fields : {})[0] ?? (preview.error as Error).message}
-          </FormMessage>
-        )}
-        <div className="overflow-x-auto pb-2">
-          <div className="grid gap-4" style={{ gridTemplateColumns: `repeat(${sizes.length}, minmax(17rem, 1fr))` }}>
+        {preview.isError && <PreviewError error={preview.error} />}
+        <SizeColumns count={sizes.length}>
             {defaults.sizes.map((size, i) => {
               const headingId = `modifier-size-${size.sizeId}-heading`;
-              const figures = saved.get(size.sizeId);
               const hasLines = actions.some((a) => (watched.sizes?.[i]?.[a] ?? []).length > 0);
+              // With nothing taken out, the extra cost is what the preview costs the added lines, and its
+              // suggested price is the same rounding of the same unrounded figure as the server's upcharge.
+              const takesOut = actions.includes('remove') && (watched.sizes?.[i]?.remove ?? []).length > 0;
+              const added = !takesOut && ready ? costed.get(`${size.sizeId}:add`) : undefined;
+              const figures = showSaved
+                ? saved.get(size.sizeId)
+                : added
+                  ? { costDelta: added.cost, suggestedUpcharge: added.suggestedPrice, problem: null }
+                  : undefined;
+              const upcharge = showSaved ? (modifier?.upcharge ?? null) : watched.upcharge?.trim() && isDecimalString(watched.upcharge.trim()) ? watched.upcharge.trim() : null;
               return (
                 <section key={size.sizeId} aria-labelledby={headingId} className="flex flex-col gap-3 rounded-lg border border-rule bg-card p-4" data-size={size.name}>
-                  <h3 id={headingId} className="text-lg font-bold">
-                    {size.name} <span className="text-sm font-normal text-muted tabular-nums">{formatQuantity(size.volumeMl, 'ml')}</span>
-                  </h3>
+                  <SizeHeading id={headingId} name={size.name} volumeMl={size.volumeMl} />
                   {actions.map((action) => {
                     const key = `${size.sizeId}:${action}`;
                     const side = costed.get(key);
@@ -242,7 +248,7 @@ export function ModifierEditor({ modifier, sizes, ingredients, preparations, pri
                     );
                   })}
                   <div aria-live="polite" className="rounded-md border border-rule bg-paper/50 px-3 py-2" data-figures-for={size.name}>
-                    {showSaved && figures && figures.costDelta !== null ? (
+                    {figures && figures.costDelta !== null ? (
                       <dl className="divide-y divide-rule text-sm">
                         <div className="flex justify-between gap-3 py-1.5">
                           <dt className="text-muted">Extra cost per cup</dt>
@@ -257,12 +263,12 @@ export function ModifierEditor({ modifier, sizes, ingredients, preparations, pri
                           </dd>
                         </div>
                         <div className="flex justify-end py-1.5">
-                          <UpchargeMark upcharge={modifier?.upcharge ?? null} suggested={figures.suggestedUpcharge} />
+                          <UpchargeMark upcharge={upcharge} suggested={figures.suggestedUpcharge} />
                         </div>
                       </dl>
                     ) : (
                       <p className="py-1 text-sm text-muted">
-                        {showSaved && figures?.problem
+                        {figures?.problem
                           ? figures.problem
                           : !hasLines
                             ? 'Not offered in this size.'
@@ -273,8 +279,7 @@ export function ModifierEditor({ modifier, sizes, ingredients, preparations, pri
                 </section>
               );
             })}
-          </div>
-        </div>
+        </SizeColumns>
       </section>
 
       {modifier && (
