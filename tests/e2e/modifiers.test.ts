@@ -145,6 +145,19 @@ test('the owner reviews the oat swap per size, changes its upcharge, and adds a 
     for (const size of created.sizes)
       expect(await row.locator(`td[data-size="${size.name}"] [data-figure="extra-cost"]`).textContent()).toBe(formatMoney(size.costDelta!, currency, { detail: true, locale }));
     await shot(page, 'list-with-new');
+
+    // Deleting asks first and says what is lost.
+    await row.getByRole('link', { name }).click();
+    await page.getByRole('button', { name: 'Delete modifier' }).click();
+    const dialog = page.getByRole('dialog', { name: `Delete ${name}?` });
+    await dialog.waitFor();
+    expect(await dialog.textContent()).toContain(`for ${sizes.map((x) => x.name).join(', ')} and its menu upcharge of ${formatMoney('0.50', currency, { locale })} are deleted`);
+    await shot(page, 'delete-confirm');
+    await dialog.getByRole('button', { name: 'Delete modifier' }).click();
+    await page.waitForURL((u) => u.pathname === '/modifiers');
+    await page.getByText(`${name} deleted.`).waitFor();
+    expect(await page.evaluate(async (u) => (await fetch(u)).status, `/api/modifiers/${id}`)).toBe(404);
+    expect(await page.locator(`tr[data-modifier="${name}"]`).count()).toBe(0);
   } finally {
     // Put the demo's oat upcharge back for whoever reads it next.
     if (oat) await s.db('modifiers').where({ id: oat.id }).update({ upcharge: oat.upcharge });
