@@ -164,16 +164,28 @@ export interface BuildLineRow extends LineRow {
 
 export type MenuRows = Awaited<ReturnType<typeof loadMenuRows>>;
 
-/** Every live drink, its sizes and build lines: three queries for the whole menu (or one drink). */
-export async function loadMenuRows(db: Knex, businessId: string, drinkId?: string) {
+/**
+ * Every live drink, its sizes and build lines: three queries for the whole menu (or one drink).
+ * `price` is the menu price in force on `asOf` (default today): the latest planned entry of
+ * menu_price_history dated on or before it, else drink_sizes.price (see the migration
+ * menu_price_schedule: due planned prices are read this way, no background job needed).
+ */
+export async function loadMenuRows(db: Knex, businessId: string, drinkId?: string, asOf: string = new Date().toISOString().slice(0, 10)) {
   const drinksQ = db('drinks').where({ business_id: businessId }).whereNull('archived_at').orderBy([{ column: 'category' }, { column: 'name' }]).select('id', 'name', 'category', 'temperature');
   const sizesQ = db('drink_sizes as ds')
     .join('cup_sizes as cs', 'cs.id', 'ds.size_id')
     .join('drinks as d', 'd.id', 'ds.drink_id')
     .where('ds.business_id', businessId)
     .whereNull('d.archived_at')
+    .joinRaw(
+      `left join lateral (
+         select h.new_price from menu_price_history h
+         where h.drink_size_id = ds.id and h.status = 'planned' and h.effective_from <= ?::date
+         order by h.effective_from desc, h.changed_at desc limit 1) mp on true`,
+      [asOf],
+    )
     .orderBy([{ column: 'cs.position' }, { column: 'cs.volume_ml' }])
-    .select('ds.id', 'ds.drink_id', 'ds.size_id', 'cs.name as size_name', 'cs.volume_ml', 'cs.position', 'ds.price', 'ds.price_version');
+    .select('ds.id', 'ds.drink_id', 'ds.size_id', 'cs.name as size_name', 'cs.volume_ml', 'cs.position', db.raw('coalesce(mp.new_price, ds.price) as price'), 'ds.price_version');
   const linesQ = db('build_lines as bl')
     .join('drink_sizes as ds', 'ds.id', 'bl.drink_size_id')
     .join('drinks as d', 'd.id', 'ds.drink_id')

@@ -4,6 +4,7 @@ import { rules } from '../../src/shared/checks';
 import { dec } from '../../src/shared/decimal';
 import { writeMoney } from '../../src/shared/money';
 import { invalidInput, notFound } from '../errors';
+import { foldDuePrices } from '../repricing/schedule.repo';
 import { loadMenuRows } from './cost-model.repo';
 import { checkLines, lineColumns, lineInSchema, presentLine, throwIfFields } from './lines';
 import { decimalString, groupBy, guardWrite, name, optionalText, qty, today } from './shared';
@@ -88,6 +89,7 @@ async function validate(db: Knex, businessId: string, input: DrinkIn) {
 /** Writes the whole drink (its row, sizes, build lines, price changes) inside `trx`. */
 async function writeDrink(trx: Knex, businessId: string, userId: string, drinkId: string, input: DrinkIn) {
   const existing = await trx('drink_sizes').where({ business_id: businessId, drink_id: drinkId }).forUpdate().select('id', 'size_id', 'price');
+  await foldDuePrices(trx, businessId, existing); // planned menu prices now due go in first (repricing)
   const bySize = new Map(existing.map((e) => [e.size_id as string, e]));
   const keep = new Set(input.sizes.map((s) => s.sizeId));
   const gone = existing.filter((e) => !keep.has(e.size_id)).map((e) => e.id);

@@ -32,7 +32,8 @@ export function costSavedSize(loaded: LoadedCostModel, category: string, size: D
 
 /** GET /api/drinks/:id/costing: the preview's response for a saved drink, plus ids. */
 export async function drinkCosting(db: Knex, businessId: string, drinkId: string, options: CostModelOptions = {}) {
-  const rows = await loadMenuRows(db, businessId, drinkId);
+  // Menu prices in force on the same date as the pack prices (planned ones included).
+  const rows = await loadMenuRows(db, businessId, drinkId, options.asOf);
   const drink = rows.drinks[0];
   if (!drink) throw notFound('That drink');
   const loaded = await loadCostModel(db, businessId, options);
@@ -56,7 +57,7 @@ export async function drinkCosting(db: Knex, businessId: string, drinkId: string
  * queries, with the margin at the current price against the category's target.
  */
 export async function menuCosting(db: Knex, businessId: string, options: CostModelOptions = {}) {
-  const [rows, loaded] = await Promise.all([loadMenuRows(db, businessId), loadCostModel(db, businessId, options)]);
+  const [rows, loaded] = await Promise.all([loadMenuRows(db, businessId, undefined, options.asOf), loadCostModel(db, businessId, options)]);
   return menuCostingFrom(loaded, rows);
 }
 

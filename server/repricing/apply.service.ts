@@ -2,9 +2,11 @@ import type { Knex } from 'knex';
 import { dec, type Dec } from '../../src/shared/decimal';
 import { currencyMinorUnits, writeMoney } from '../../src/shared/money';
 import type { ApplyInput } from '../../src/shared/schemas/repricing';
+import { today } from '../costing/shared';
 import { conflict, invalidInput, notFound } from '../errors';
 import { keepLadder } from './ladder';
 import { businessName, findScenario, lockDrinkSizes, type LockedDrinkSize } from './repricing.repo';
+import { foldDuePrices, pricesBefore, samePrice, supersedePlanned } from './schedule.repo';
 
 /**
  * Applies new menu prices in ONE transaction: every price is written with its history row
@@ -16,8 +18,11 @@ import { businessName, findScenario, lockDrinkSizes, type LockedDrinkSize } from
  * first (SELECT … FOR UPDATE), so of two applies at once the second waits, then sees the bumped
  * versions and gets the 409 instead of overwriting.
  *
- * The new prices become the menu prices at once; `effectiveFrom` is the date they take effect
- * at the counter, recorded in the history and printed on the price list.
+ * Effective dates: dated today or earlier, the new prices become the menu prices at once. Dated
+ * later, they are written as 'planned' history rows and drink_sizes.price keeps today's price;
+ * reads resolve the price in force on a date (see schedule.repo), and an apply for the same date
+ * replaces an earlier plan for it. Either way the drink size's version is bumped, so the version
+ * check covers planned prices too. Planned prices that have come due are folded in first.
  */
 export async function applyPrices(db: Knex, businessId: string, userId: string, input: ApplyInput) {
   const business = await businessName(db, businessId);
@@ -46,6 +51,11 @@ export async function applyPrices(db: Knex, businessId: string, userId: string, 
 
     const drinkIds = [...new Set(input.prices.map((p) => p.drinkId))];
     const locked = await lockDrinkSizes(trx, businessId, drinkIds);
+    await foldDuePrices(trx, businessId, locked);
+    const planned = input.effectiveFrom > today();
+    // The price each size carries just before the new one takes effect (today's when applied now).
+    const before = planned ? await pricesBefore(trx, locked, input.effectiveFrom) : new Map(locked.map((r) => [r.id, r.price]));
+    const priceBefore = (r: LockedDrinkSize) => before.get(r.id) ?? null;
     const byKey = new Map(locked.map((r) => [`${r.drink_id}|${r.size_name}`, r]));
     const wanted = new Map<string, Dec>();
     input.prices.forEach((p, i) => {
@@ -76,46 +86,53 @@ export async function applyPrices(db: Knex, businessId: string, userId: string, 
     if (input.keepLadder) {
       for (const drinkId of drinkIds) {
         const sizes = locked.filter((r) => r.drink_id === drinkId);
-        const ladder = keepLadder(sizes.map((s) => ({ id: s.id, current: s.price === null ? null : dec(s.price), chosen: wanted.get(s.id) ?? (s.price === null ? null : dec(s.price)) })));
+        const current = (s: LockedDrinkSize) => (priceBefore(s) === null ? null : dec(priceBefore(s) as string));
+        const ladder = keepLadder(sizes.map((s) => ({ id: s.id, current: current(s), chosen: wanted.get(s.id) ?? current(s) })));
         for (const [id, price] of ladder) if (price !== null) final.set(id, price);
       }
     }
 
     const reason = input.reason ?? (scenario ? `Repricing: ${scenario.name}` : 'Repricing');
     const applied = [];
+    // A plan for the same date and size is replaced by this one.
+    const superseded = planned ? await supersedePlanned(trx, businessId, locked.filter((r) => final.get(r.id)).map((r) => r.id), input.effectiveFrom, userId) : new Set<string>();
     for (const row of locked) {
       const price = final.get(row.id);
       if (!price) continue;
       if (price.lte(0)) throw invalidInput({ prices: `${row.drink_name} (${row.size_name}) would end at ${writeMoney(price, currency)}: a price must be more than 0.` });
-      if (row.price !== null && dec(row.price).eq(price)) continue;
+      const unchanged = samePrice(priceBefore(row), price.toFixed());
+      if (unchanged && !superseded.has(row.id)) continue;
       const updated = await trx('drink_sizes')
         .where({ id: row.id, price_version: row.price_version })
-        .update({ price: price.toFixed(), price_version: row.price_version + 1, updated_at: trx.fn.now() });
+        .update({ ...(planned ? {} : { price: price.toFixed() }), price_version: row.price_version + 1, updated_at: trx.fn.now() });
       if (updated !== 1) throw conflict('price_changed', `Someone else changed the price of ${row.drink_name} (${row.size_name}) just now. Nothing was applied.`);
+      if (unchanged) continue; // only an earlier plan for that date was withdrawn
       await trx('menu_price_history').insert({
         business_id: businessId,
         drink_size_id: row.id,
-        old_price: row.price,
+        old_price: priceBefore(row),
         new_price: price.toFixed(),
         effective_from: input.effectiveFrom,
         reason,
         scenario_id: scenario?.id ?? null,
         changed_by: userId,
+        status: planned ? 'planned' : 'applied',
       });
       applied.push({
         drinkId: row.drink_id,
         drinkName: row.drink_name,
         drinkSizeId: row.id,
         size: row.size_name,
-        oldPrice: row.price === null ? null : writeMoney(row.price, currency),
+        oldPrice: priceBefore(row) === null ? null : writeMoney(priceBefore(row) as string, currency),
         newPrice: writeMoney(price, currency),
         priceVersion: row.price_version + 1,
         effectiveFrom: input.effectiveFrom,
+        planned,
       });
     }
     if (scenario) {
       await trx('reprice_scenarios').where({ id: scenario.id }).update({ status: 'applied', applied_by: userId, applied_at: trx.fn.now(), effective_from: input.effectiveFrom, updated_at: trx.fn.now() });
     }
-    return { effectiveFrom: input.effectiveFrom, scenarioId: scenario?.id ?? null, applied };
+    return { effectiveFrom: input.effectiveFrom, planned, scenarioId: scenario?.id ?? null, applied };
   });
 }

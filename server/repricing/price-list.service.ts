@@ -7,7 +7,8 @@ import { loadMenuRows } from '../costing/cost-model.repo';
 import { loadCostModel } from '../costing/cost-model.service';
 import { groupBy, money, today } from '../costing/shared';
 import { notFound } from '../errors';
-import { businessName, listModifierLines, menuPricesEffectiveFrom, plannedPackPrices, priceHistory } from './repricing.repo';
+import { businessName, listModifierLines, menuPricesEffectiveFrom, plannedPackPrices, priceHistory, type PriceHistoryRow } from './repricing.repo';
+import { nextPlannedDate } from './schedule.repo';
 
 /** Printed with tax-inclusive prices; tax rules differ by place and by eat-in or takeaway. */
 const TAX_NOTE = {
@@ -16,16 +17,18 @@ const TAX_NOTE = {
 } as const;
 
 /**
- * The current price list for the counter, from the menu: every live drink with its sizes and
- * prices, the allergens of its build (through preparations), add-ons with their upcharge and
- * allergens, the date the prices took effect, and the allergen caution.
+ * The price list for the counter on `date` (default today), from the menu: every live drink with
+ * its sizes and the prices in force that day (planned ones included), the allergens of its build
+ * (through preparations), add-ons with their upcharge and allergens, the date those prices took
+ * effect, the next planned change after it, and the allergen caution.
  */
-export async function priceList(db: Knex, businessId: string) {
-  const [business, menu, loaded, effectiveFrom, modifierLines] = await Promise.all([
+export async function priceList(db: Knex, businessId: string, date: string = today()) {
+  const [business, menu, loaded, effectiveFrom, nextChangeFrom, modifierLines] = await Promise.all([
     businessName(db, businessId),
-    loadMenuRows(db, businessId),
+    loadMenuRows(db, businessId, undefined, date),
     loadCostModel(db, businessId),
-    menuPricesEffectiveFrom(db, businessId),
+    menuPricesEffectiveFrom(db, businessId, date),
+    nextPlannedDate(db, businessId, date),
     listModifierLines(db, businessId),
   ]);
   const { currency } = loaded;
@@ -49,7 +52,9 @@ export async function priceList(db: Knex, businessId: string) {
   }));
   return {
     business: { name: business!.name, currency, taxMode: business!.tax_mode },
+    date,
     effectiveFrom: effectiveFrom ?? null,
+    nextChangeFrom,
     generatedOn: today(),
     taxNote: TAX_NOTE[business!.tax_mode],
     sizes: [...cupSizes.values()].sort((a, b) => a.position - b.position || dec(a.volumeMl).comparedTo(dec(b.volumeMl))).map(({ position: _p, ...s }) => s),
@@ -61,8 +66,8 @@ export async function priceList(db: Knex, businessId: string) {
 }
 
 /** The price list as CSV: one line per drink and size (RFC 4180, through csv-stringify). */
-export async function priceListCsv(db: Knex, businessId: string): Promise<string> {
-  const list = await priceList(db, businessId);
+export async function priceListCsv(db: Knex, businessId: string, date?: string): Promise<string> {
+  const list = await priceList(db, businessId, date);
   const records: string[][] = [];
   for (const d of list.drinks) {
     const allergens = d.allergens.map((a) => ALLERGENS[a]).join('; ');
@@ -78,27 +83,39 @@ export async function priceListCsv(db: Knex, businessId: string): Promise<string
   });
 }
 
+/** The fields every menu price change is shown with (history and scheduled prices). */
+export function presentPriceChange(r: Omit<PriceHistoryRow, 'status' | 'cancelled_at'>, currency: string) {
+  return {
+    id: r.id,
+    drinkSizeId: r.drink_size_id,
+    sizeId: r.size_id,
+    size: r.size_name,
+    oldPrice: money(r.old_price, currency),
+    newPrice: writeMoney(r.new_price, currency),
+    effectiveFrom: r.effective_from,
+    reason: r.reason,
+    scenarioId: r.scenario_id,
+    scenarioName: r.scenario_name,
+  };
+}
+
 export async function drinkPriceHistory(db: Knex, businessId: string, drinkId: string) {
   const drink = await db('drinks').where({ business_id: businessId, id: drinkId }).first('id', 'name', 'archived_at');
   if (!drink) throw notFound('That drink');
   const [rows, business] = await Promise.all([priceHistory(db, businessId, drinkId), businessName(db, businessId)]);
   const currency = business!.currency;
+  const now = today();
   return {
     drink: { id: drink.id, name: drink.name, archived: drink.archived_at !== null },
     currency,
     history: rows.map((r) => ({
-      id: r.id,
-      drinkSizeId: r.drink_size_id,
-      sizeId: r.size_id,
-      size: r.size_name,
-      oldPrice: money(r.old_price, currency),
-      newPrice: writeMoney(r.new_price, currency),
-      effectiveFrom: r.effective_from,
-      reason: r.reason,
-      scenarioId: r.scenario_id,
-      scenarioName: r.scenario_name,
+      ...presentPriceChange(r, currency),
       changedBy: r.changed_by ? { id: r.changed_by, name: r.changed_by_name } : null,
       changedAt: new Date(r.changed_at).toISOString(),
+      // A planned price whose date has come is in force even before a write folds it in.
+      status: r.status === 'planned' && r.effective_from <= now ? ('applied' as const) : r.status,
+      planned: r.status === 'planned' && r.effective_from > now,
+      cancelledAt: r.cancelled_at ? new Date(r.cancelled_at).toISOString() : null,
     })),
   };
 }

@@ -125,6 +125,8 @@ export interface PriceHistoryRow {
   changed_by: string | null;
   changed_by_name: string | null;
   changed_at: Date;
+  status: 'applied' | 'planned' | 'cancelled';
+  cancelled_at: Date | null;
 }
 
 export async function priceHistory(db: Knex, businessId: string, drinkId: string): Promise<PriceHistoryRow[]> {
@@ -138,16 +140,18 @@ export async function priceHistory(db: Knex, businessId: string, drinkId: string
     .orderBy([{ column: 'h.changed_at', order: 'desc' }, { column: 'cs.position' }])
     .select(
       'h.id', 'h.drink_size_id', 'ds.size_id', 'cs.name as size_name', 'h.old_price', 'h.new_price', db.raw("to_char(h.effective_from, 'YYYY-MM-DD') as effective_from"),
-      'h.reason', 'h.scenario_id', 's.name as scenario_name', 'h.changed_by', 'u.name as changed_by_name', 'h.changed_at',
+      'h.reason', 'h.scenario_id', 's.name as scenario_name', 'h.changed_by', 'u.name as changed_by_name', 'h.changed_at', 'h.status', 'h.cancelled_at',
     );
 }
 
-/** The latest effective date among the prices now on the menu (null when none was recorded). */
-export async function menuPricesEffectiveFrom(db: Knex, businessId: string): Promise<string | null> {
+/** The latest effective date, on or before `date`, among the menu's price changes (cancelled plans aside; null when none). */
+export async function menuPricesEffectiveFrom(db: Knex, businessId: string, date: string): Promise<string | null> {
   const row = await db('menu_price_history as h')
     .join('drink_sizes as ds', 'ds.id', 'h.drink_size_id')
     .join('drinks as d', 'd.id', 'ds.drink_id')
     .where('h.business_id', businessId)
+    .whereNot('h.status', 'cancelled')
+    .where('h.effective_from', '<=', date)
     .whereNull('d.archived_at')
     .first(db.raw("to_char(max(h.effective_from), 'YYYY-MM-DD') as d"));
   return (row as { d: string | null } | undefined)?.d ?? null;

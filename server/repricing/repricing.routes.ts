@@ -6,6 +6,11 @@ import { applySchema, compareQuerySchema, previewSchema, scenarioSchema } from '
 import { applyPrices } from './apply.service';
 import { previewImpact } from './impact.service';
 import { drinkPriceHistory, plannedChanges, priceList, priceListCsv } from './price-list.service';
+import { cancelScheduled, scheduledPrices } from './scheduled.service';
+import { isoDate, today } from '../costing/shared';
+import { z } from 'zod';
+
+const dateQuery = z.object({ date: isoDate.optional() });
 import * as scenarios from './scenarios.service';
 
 export function repricingRoutes(deps: AppDeps) {
@@ -23,6 +28,14 @@ export function repricingRoutes(deps: AppDeps) {
   });
   r.get('/api/reprice/planned', allow('prices.history'), async (req, res) => {
     res.json(await plannedChanges(db, req.user!.businessId));
+  });
+
+  // Menu prices applied with a later date; cancelled before their date by owner or manager.
+  r.get('/api/reprice/scheduled', allow('prices.history'), async (req, res) => {
+    res.json(await scheduledPrices(db, req.user!.businessId));
+  });
+  r.post('/api/reprice/scheduled/:id/cancel', allow('prices.apply'), async (req, res) => {
+    res.json(await cancelScheduled(db, req.user!.businessId, req.user!.id, id(req.params.id)));
   });
 
   r.get('/api/reprice/scenarios', allow('prices.history'), async (req, res) => {
@@ -52,12 +65,14 @@ export function repricingRoutes(deps: AppDeps) {
 
   // The price list is what the counter shows: every role may read and print it.
   r.get('/api/price-list', allow('cards.read'), async (req, res) => {
-    res.json(await priceList(db, req.user!.businessId));
+    const { date } = parse(dateQuery, req.query);
+    res.json(await priceList(db, req.user!.businessId, date));
   });
   r.get('/api/price-list.csv', allow('cards.read'), async (req, res) => {
-    const csv = await priceListCsv(db, req.user!.businessId);
+    const { date = today() } = parse(dateQuery, req.query);
+    const csv = await priceListCsv(db, req.user!.businessId, date);
     res.setHeader('content-type', 'text/csv; charset=utf-8');
-    res.setHeader('content-disposition', `attachment; filename="price-list-${new Date().toISOString().slice(0, 10)}.csv"`);
+    res.setHeader('content-disposition', `attachment; filename="price-list-${date}.csv"`);
     res.send(csv);
   });
 

@@ -32,21 +32,21 @@ test('applies the prices with exact history rows: old, new, effective date, who,
   const [small, large] = m.latte.drinkSizeIds;
   const rowSmall = body.rows.find((r: { drinkSizeId: string }) => r.drinkSizeId === small);
   const res = await owner.post('/api/reprice/apply', {
-    effectiveFrom: '2026-12-08',
+    effectiveFrom: '2026-11-23',
     prices: [
       { drinkId: m.latte.id, size: `Small ${m.s}`, price: '3.20', priceVersion: rowSmall.priceVersion },
       { drinkId: m.latte.id, size: `Large ${m.s}`, price: '3.60' }, // the same price: kept, no history row
     ],
   });
   expect(res.status, JSON.stringify(res.body)).toBe(200);
-  expect(res.body.applied).toEqual([{ drinkId: m.latte.id, drinkName: `Latte ${m.s}`, drinkSizeId: small, size: `Small ${m.s}`, oldPrice: '3.10', newPrice: '3.20', priceVersion: 1, effectiveFrom: '2026-12-08' }]);
+  expect(res.body.applied).toEqual([{ drinkId: m.latte.id, drinkName: `Latte ${m.s}`, drinkSizeId: small, size: `Small ${m.s}`, oldPrice: '3.10', newPrice: '3.20', priceVersion: 1, effectiveFrom: '2026-11-23', planned: false }]);
   expect(await prices(ctx.db, [small, large])).toEqual({ [small]: ['3.2000', 1], [large]: ['3.6000', 0] });
   const history = await ctx.db('menu_price_history').where({ drink_size_id: small }).select('old_price', 'new_price', 'effective_from', 'reason', 'scenario_id', 'changed_by');
-  expect(history).toEqual([{ old_price: '3.1000', new_price: '3.2000', effective_from: '2026-12-08', reason: 'Repricing', scenario_id: null, changed_by: biz.users.owner.id }]);
+  expect(history).toEqual([{ old_price: '3.1000', new_price: '3.2000', effective_from: '2026-11-23', reason: 'Repricing', scenario_id: null, changed_by: biz.users.owner.id }]);
 
   const h = await owner.get(`/api/drinks/${m.latte.id}/price-history`);
   expect(h.status).toBe(200);
-  expect(h.body.history).toEqual([expect.objectContaining({ size: `Small ${m.s}`, oldPrice: '3.10', newPrice: '3.20', effectiveFrom: '2026-12-08', reason: 'Repricing', changedBy: { id: biz.users.owner.id, name: `owner ${biz.users.owner.email.slice(6, 14)}` } })]);
+  expect(h.body.history).toEqual([expect.objectContaining({ size: `Small ${m.s}`, oldPrice: '3.10', newPrice: '3.20', effectiveFrom: '2026-11-23', reason: 'Repricing', changedBy: { id: biz.users.owner.id, name: `owner ${biz.users.owner.email.slice(6, 14)}` } })]);
 });
 
 test('all or nothing: a failure in the middle of the writes leaves every price and history as it was', async () => {
@@ -61,7 +61,7 @@ test('all or nothing: a failure in the middle of the writes leaves every price a
   await ctx.db.raw(`create trigger ${fn} before update on drink_sizes for each row execute function ${fn}()`);
   try {
     const res = await owner.post('/api/reprice/apply', {
-      effectiveFrom: '2026-12-08',
+      effectiveFrom: '2026-11-23',
       prices: [
         { drinkId: m.latte.id, size: `Small ${m.s}`, price: '3.30' },
         { drinkId: m.latte.id, size: `Large ${m.s}`, price: '3.80' },
@@ -82,7 +82,7 @@ test('a refused row refuses the whole apply (400 naming it) and writes nothing',
   const { owner, m } = await setUp();
   const before = await prices(ctx.db, m.latte.drinkSizeIds);
   const res = await owner.post('/api/reprice/apply', {
-    effectiveFrom: '2026-12-08',
+    effectiveFrom: '2026-11-23',
     prices: [
       { drinkId: m.latte.id, size: `Small ${m.s}`, price: '3.30' },
       { drinkId: m.teaDrink.id, size: `Large ${m.s}`, price: '2.40' },
@@ -91,7 +91,7 @@ test('a refused row refuses the whole apply (400 naming it) and writes nothing',
   });
   expect(res.status).toBe(400);
   expect(res.body.error.fields).toEqual({ 'prices[2].price': 'Enter the price to 2 decimal places at most (GBP).' });
-  const res2 = await owner.post('/api/reprice/apply', { effectiveFrom: '2026-12-08', prices: [{ drinkId: m.latte.id, size: `Small ${m.s}`, price: '3.30' }, { drinkId: m.teaDrink.id, size: `Large ${m.s}`, price: '2.40' }] });
+  const res2 = await owner.post('/api/reprice/apply', { effectiveFrom: '2026-11-23', prices: [{ drinkId: m.latte.id, size: `Small ${m.s}`, price: '3.30' }, { drinkId: m.teaDrink.id, size: `Large ${m.s}`, price: '2.40' }] });
   expect(res2.status).toBe(400);
   expect(res2.body.error.fields).toEqual({ 'prices[1].size': `That drink is not offered in "Large ${m.s}".` });
   expect(await prices(ctx.db, m.latte.drinkSizeIds)).toEqual(before);
@@ -103,7 +103,7 @@ describe('two people applying at once', () => {
     const seenByOwner = await preview(owner, m.milk.id);
     const seenByManager = await preview(manager, m.milk.id);
     const body = (seen: typeof seenByOwner, price: string) => ({
-      effectiveFrom: '2026-12-08',
+      effectiveFrom: '2026-11-23',
       prices: seen.rows.filter((r: { drinkId: string }) => r.drinkId === m.latte.id).map((r: { drinkId: string; size: string; priceVersion: number }) => ({ drinkId: r.drinkId, size: r.size, price, priceVersion: r.priceVersion })),
     });
     // Sent together: the rows are locked, so one waits for the other and then sees the new versions.
@@ -126,7 +126,7 @@ describe('two people applying at once', () => {
     const seen = await preview(owner, m.milk.id);
     await ctx.db('drink_sizes').where({ id: m.foamBrew.drinkSizeIds[0] }).update({ price: '3.85', price_version: ctx.db.raw('price_version + 1') });
     const row = seen.rows.find((r: { drinkId: string }) => r.drinkId === m.foamBrew.id);
-    const res = await owner.post('/api/reprice/apply', { effectiveFrom: '2026-12-08', prices: [{ drinkId: m.foamBrew.id, size: row.size, price: '4.00', priceVersion: row.priceVersion }] });
+    const res = await owner.post('/api/reprice/apply', { effectiveFrom: '2026-11-23', prices: [{ drinkId: m.foamBrew.id, size: row.size, price: '4.00', priceVersion: row.priceVersion }] });
     expect(res.status).toBe(409);
     expect((await prices(ctx.db, m.foamBrew.drinkSizeIds))[m.foamBrew.drinkSizeIds[0]]).toEqual(['3.8500', 1]);
   });
@@ -152,7 +152,7 @@ describe('a tidy ladder', () => {
     });
     expect(both.prices.map((p: { size: string; price: string }) => [p.size, p.price]).sort()).toEqual([[`Large ${m.s}`, '3.90'], [`Small ${m.s}`, '3.40']]);
     // The apply with keepLadder does the same from the Small price alone.
-    const res = await owner.post('/api/reprice/apply', { effectiveFrom: '2026-12-08', keepLadder: true, prices: [{ drinkId: m.latte.id, size: `Small ${m.s}`, price: '3.25' }] });
+    const res = await owner.post('/api/reprice/apply', { effectiveFrom: '2026-11-23', keepLadder: true, prices: [{ drinkId: m.latte.id, size: `Small ${m.s}`, price: '3.25' }] });
     expect(res.status, JSON.stringify(res.body)).toBe(200);
     expect(res.body.applied.map((a: { size: string; newPrice: string }) => [a.size, a.newPrice])).toEqual([
       [`Small ${m.s}`, '3.25'],
@@ -173,18 +173,18 @@ test('applying a saved scenario marks it applied, names it in the history, and u
   expect(save.body.impact.prices).toEqual([expect.objectContaining({ drinkId: m.foamBrew.id, oldPrice: '3.80', price: '3.95' })]);
   // Someone changes that price after the scenario was saved: applying it is refused.
   await ctx.db('drink_sizes').where({ id: m.foamBrew.drinkSizeIds[0] }).update({ price_version: ctx.db.raw('price_version + 1') });
-  const stale = await owner.post('/api/reprice/apply', { effectiveFrom: '2026-12-08', scenarioId: id, prices: [{ drinkId: m.foamBrew.id, size: `Small ${m.s}`, price: '3.95' }] });
+  const stale = await owner.post('/api/reprice/apply', { effectiveFrom: '2026-11-23', scenarioId: id, prices: [{ drinkId: m.foamBrew.id, size: `Small ${m.s}`, price: '3.95' }] });
   expect(stale.status).toBe(409);
   // Saved again, it applies.
   const resave = await owner.put(`/api/reprice/scenarios/${id}`, { name: `Pass it on ${m.s}`, changes: [{ ingredientId: m.milk.id, newPrice: '10.69' }], decisions: [{ drinkSizeId: m.foamBrew.drinkSizeIds[0], choice: 'price', price: '3.95' }] });
   expect(resave.status).toBe(200);
-  const ok = await owner.post('/api/reprice/apply', { effectiveFrom: '2026-12-08', scenarioId: id, prices: [{ drinkId: m.foamBrew.id, size: `Small ${m.s}`, price: '3.95' }] });
+  const ok = await owner.post('/api/reprice/apply', { effectiveFrom: '2026-11-23', scenarioId: id, prices: [{ drinkId: m.foamBrew.id, size: `Small ${m.s}`, price: '3.95' }] });
   expect(ok.status, JSON.stringify(ok.body)).toBe(200);
   const h = await ctx.db('menu_price_history').where({ drink_size_id: m.foamBrew.drinkSizeIds[0] }).first('scenario_id', 'reason');
   expect(h).toEqual({ scenario_id: id, reason: `Repricing: Pass it on ${m.s}` });
-  const again = await owner.post('/api/reprice/apply', { effectiveFrom: '2026-12-08', scenarioId: id, prices: [{ drinkId: m.foamBrew.id, size: `Small ${m.s}`, price: '3.95' }] });
+  const again = await owner.post('/api/reprice/apply', { effectiveFrom: '2026-11-23', scenarioId: id, prices: [{ drinkId: m.foamBrew.id, size: `Small ${m.s}`, price: '3.95' }] });
   expect(again.status).toBe(409);
   expect(again.body.error.code).toBe('already_applied');
   const got = await owner.get(`/api/reprice/scenarios/${id}`);
-  expect(got.body.scenario).toMatchObject({ status: 'applied', effectiveFrom: '2026-12-08' });
+  expect(got.body.scenario).toMatchObject({ status: 'applied', effectiveFrom: '2026-11-23' });
 });

@@ -65,11 +65,11 @@ test('draft scenarios are saved, listed, compared side by side, and change nothi
 
 test('the price list: every drink and size with its price, allergen marks, the caution and the date effective; CSV too', async () => {
   const { owner, biz, m } = await setUp();
-  const apply = await owner.post('/api/reprice/apply', { effectiveFrom: '2026-12-14', prices: [{ drinkId: m.latte.id, size: `Small ${m.s}`, price: '3.20' }] });
+  const apply = await owner.post('/api/reprice/apply', { effectiveFrom: '2026-11-16', prices: [{ drinkId: m.latte.id, size: `Small ${m.s}`, price: '3.20' }] });
   expect(apply.status).toBe(200);
   const res = await owner.get('/api/price-list');
   expect(res.status).toBe(200);
-  expect(res.body.effectiveFrom).toBe('2026-12-14');
+  expect(res.body.effectiveFrom).toBe('2026-11-16');
   expect(res.body.allergenCaution).toBe(ALLERGEN_CAUTION);
   expect(res.body.business.currency).toBe('GBP');
   const latte = res.body.drinks.find((d: { id: string }) => d.id === m.latte.id);
@@ -90,19 +90,19 @@ test('the price list: every drink and size with its price, allergen marks, the c
   // Read back with csv-parse (an RFC 4180 reader from npm), not with our own code.
   const records = parse(csv.text, { columns: true }) as Record<string, string>[];
   expect(records.find((r) => r.drink === `Latte ${m.s}` && r.size === `Small ${m.s}`)).toEqual({
-    drink: `Latte ${m.s}`, category: 'Espresso', temperature: 'hot', size: `Small ${m.s}`, volume_ml: '227', price: '3.20', currency: 'GBP', allergens: 'Milk', effective_from: '2026-12-14',
+    drink: `Latte ${m.s}`, category: 'Espresso', temperature: 'hot', size: `Small ${m.s}`, volume_ml: '227', price: '3.20', currency: 'GBP', allergens: 'Milk', effective_from: '2026-11-16',
   });
   expect(records.find((r) => r.drink === `Oat swap ${m.s}`)).toMatchObject({ category: 'Add-on', price: '0.40', allergens: 'Cereals containing gluten (wheat, rye, barley, oats)' });
 });
 
 test('price history: newest first, per size, and other businesses get 404', async () => {
   const { owner, m } = await setUp();
-  await owner.post('/api/reprice/apply', { effectiveFrom: '2026-12-08', prices: [{ drinkId: m.teaDrink.id, size: `Small ${m.s}`, price: '2.30' }] });
-  await owner.post('/api/reprice/apply', { effectiveFrom: '2026-12-20', prices: [{ drinkId: m.teaDrink.id, size: `Small ${m.s}`, price: '2.40' }] });
+  await owner.post('/api/reprice/apply', { effectiveFrom: '2026-11-09', prices: [{ drinkId: m.teaDrink.id, size: `Small ${m.s}`, price: '2.30' }] });
+  await owner.post('/api/reprice/apply', { effectiveFrom: '2026-11-20', prices: [{ drinkId: m.teaDrink.id, size: `Small ${m.s}`, price: '2.40' }] });
   const h = await owner.get(`/api/drinks/${m.teaDrink.id}/price-history`);
   expect(h.body.history.map((x: { oldPrice: string; newPrice: string; effectiveFrom: string }) => [x.oldPrice, x.newPrice, x.effectiveFrom])).toEqual([
-    ['2.30', '2.40', '2026-12-20'],
-    ['2.20', '2.30', '2026-12-08'],
+    ['2.30', '2.40', '2026-11-20'],
+    ['2.20', '2.30', '2026-11-09'],
   ]);
   const other = await makeBusiness(ctx.db);
   const stranger = await signIn(ctx.app, other.users.owner.email);

@@ -25,6 +25,13 @@ async function newScenario(f: RouteFixture) {
   const [row] = await f.db('reprice_scenarios').insert({ business_id: f.biz.businessId, name: `Scenario ${suffix()}`, changes: JSON.stringify([{ ingredientId: m.milk.id, newPrice: '10.69' }]) }).returning('id');
   return row.id as string;
 }
+/** A fresh planned menu price (a month from now) for each call: cancelling one uses it up. */
+async function newPlannedPrice(f: RouteFixture) {
+  const m = await menu(f);
+  const effectiveFrom = new Date(Date.now() + 30 * 86_400_000).toISOString().slice(0, 10);
+  const [row] = await f.db('menu_price_history').insert({ business_id: f.biz.businessId, drink_size_id: m.teaDrink.drinkSizeIds[0], old_price: '2.20', new_price: '2.45', effective_from: effectiveFrom, status: 'planned' }).returning('id');
+  return row.id as string;
+}
 const scenario = (f: RouteFixture) => {
   let p = scenarioIds.get(f);
   if (!p) scenarioIds.set(f, (p = newScenario(f)));
@@ -45,6 +52,8 @@ export const routes: RouteCase[] = [
     body: (f) => ({ effectiveFrom: '2026-12-08', prices: [{ drinkId: the(f).teaDrink.id, size: `Small ${the(f).s}`, price: '2.35' }] }),
   },
   { method: 'get', path: '/api/reprice/planned', expect: read() },
+  { method: 'get', path: '/api/reprice/scheduled', expect: read() },
+  { method: 'post', path: '/api/reprice/scheduled/:id/cancel', url: async (f) => `/api/reprice/scheduled/${await newPlannedPrice(f)}/cancel`, expect: write(200, 404) },
   { method: 'get', path: '/api/reprice/scenarios', expect: read() },
   { method: 'get', path: '/api/reprice/compare', url: async (f) => `/api/reprice/compare?ids=${await scenario(f)}`, expect: read(404) },
   { method: 'get', path: '/api/reprice/scenarios/:id', url: async (f) => `/api/reprice/scenarios/${await scenario(f)}`, expect: read(404) },
