@@ -35,6 +35,9 @@ export const navigation: readonly NavEntry[] = [
   entry(paths.pricing, 'Sizes and pricing', ['owner', 'manager'], 'Your cup sizes, target margin, tax on menu prices and price rounding.'),
   entry(paths.repricing, 'Repricing', ['owner', 'manager', 'bookkeeper'], "See what a supplier's price rise does to every drink, try scenarios, apply new prices."),
   entry(paths.priceList, 'Price list', everyone, 'The prices for the counter with allergen marks, to print or download.'),
+  entry(paths.stock, 'Stock', ['owner', 'manager', 'bookkeeper'], 'Stock on hand at the site, par levels and reorder points, and the suggested order per supplier.'),
+  entry(paths.orders, 'Purchase orders', ['owner', 'manager', 'bookkeeper'], 'Draft, place, pay and receive orders to suppliers, with their timeline and invoices.'),
+  entry(paths.suppliers, 'Suppliers', ['owner', 'manager', 'bookkeeper'], 'Who you buy from, where orders go, minimums, delivery days and how they are paid.'),
   entry(paths.monthEnd, 'Month end', ['owner', 'manager', 'bookkeeper'], 'Cost of goods for a month, actual against theoretical, CSV exports and closing the month.'),
 ];
 

@@ -29,6 +29,13 @@ import { IngredientsRoute } from './routes/ingredients';
 import { PreparationRoute } from './routes/preparation';
 import { PreparationsRoute } from './routes/preparations';
 import { PricingRoute } from './routes/pricing';
+import { SuppliersRoute } from './routes/suppliers';
+import { SupplierRoute } from './routes/supplier';
+import { StockRoute } from './routes/stock';
+import { OrdersRoute } from './routes/orders';
+import { OrderEditorRoute } from './routes/order-editor';
+import { OrderRoute } from './routes/order';
+import { OrderReceiveRoute } from './routes/order-receive';
 
 export const router = createBrowserRouter([
   {
@@ -72,6 +79,15 @@ export const router = createBrowserRouter([
           { path: paths.priceList.path, element: <PriceListRoute /> },
           { path: paths.priceHistory.path, element: <PriceHistoryRoute /> },
           { path: paths.monthEnd.path, element: <MonthEndRoute /> },
+          { path: paths.suppliers.path, element: <SuppliersRoute /> },
+          { path: paths.newSupplier.path, element: <SupplierRoute /> },
+          { path: paths.supplier.path, element: <SupplierRoute /> },
+          { path: paths.stock.path, element: <StockRoute /> },
+          { path: paths.orders.path, element: <OrdersRoute /> },
+          { path: paths.newOrder.path, element: <OrderEditorRoute /> },
+          { path: paths.order.path, element: <OrderRoute /> },
+          { path: paths.editOrder.path, element: <OrderEditorRoute /> },
+          { path: paths.receiveOrder.path, element: <OrderReceiveRoute /> },
           { path: '*', element: <NotFoundRoute /> },
         ],
       },

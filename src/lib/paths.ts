@@ -122,8 +122,10 @@ export const paths = {
     repriceScenario: (id: string) => `/api/reprice/scenarios/${encodeURIComponent(id)}`,
     repriceCompare: (ids: readonly string[]) => `/api/reprice/compare?ids=${ids.map(encodeURIComponent).join(',')}`,
     drinkPriceHistory: (id: string) => `/api/drinks/${encodeURIComponent(id)}/price-history`,
-    priceList: () => '/api/price-list',
-    priceListCsv: () => '/api/price-list.csv',
+    priceList: (date?: string) => (date ? `/api/price-list?date=${encodeURIComponent(date)}` : '/api/price-list'),
+    priceListCsv: (date?: string) => (date ? `/api/price-list.csv?date=${encodeURIComponent(date)}` : '/api/price-list.csv'),
+    repriceScheduled: () => '/api/reprice/scheduled',
+    repriceCancelScheduled: (id: string) => `/api/reprice/scheduled/${encodeURIComponent(id)}/cancel`,
   },
 } as const;
 

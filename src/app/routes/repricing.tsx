@@ -24,6 +24,7 @@ import { ImpactTotals } from '../../features/repricing/components/impact-totals'
 import { ModifiersTable } from '../../features/repricing/components/modifiers-table';
 import { PackPriceChart } from '../../features/repricing/components/pack-price-chart';
 import { ScenariosPanel } from '../../features/repricing/components/scenarios-panel';
+import { ScheduledPrices } from '../../features/repricing/components/scheduled-prices';
 
 const todayUtc = () => new Date().toISOString().slice(0, 10);
 
@@ -183,6 +184,10 @@ export function RepricingRoute() {
           )}
         </section>
       )}
+
+      <CardSection title="Scheduled menu prices">
+        <ScheduledPrices canCancel={canApply} />
+      </CardSection>
 
       <CardSection title="Scenarios">
         <ScenariosPanel

@@ -11,8 +11,10 @@ export interface ApplyRequest {
 
 export interface ApplyResult {
   effectiveFrom: string;
+  /** True when dated after today: the prices are scheduled, today's stay until then. */
+  planned: boolean;
   scenarioId: string | null;
-  applied: { drinkId: string; drinkName: string; drinkSizeId: string; size: string; oldPrice: string | null; newPrice: string; priceVersion: number; effectiveFrom: string }[];
+  applied: { drinkId: string; drinkName: string; drinkSizeId: string; size: string; oldPrice: string | null; newPrice: string; priceVersion: number; effectiveFrom: string; planned: boolean }[];
 }
 
 export function applyPrices(body: ApplyRequest): Promise<ApplyResult> {

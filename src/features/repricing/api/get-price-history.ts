@@ -18,6 +18,10 @@ export interface PriceHistory {
     scenarioName: string | null;
     changedBy: { id: string; name: string } | null;
     changedAt: string;
+    /** planned = takes effect later; cancelled = a plan withdrawn before its date. */
+    status: 'applied' | 'planned' | 'cancelled';
+    planned: boolean;
+    cancelledAt: string | null;
   }[];
 }
 

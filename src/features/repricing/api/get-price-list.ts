@@ -4,7 +4,11 @@ import { paths } from '../../../lib/paths';
 
 export interface PriceList {
   business: { name: string; currency: string; taxMode: 'inclusive' | 'exclusive' };
+  /** The day whose prices are listed. */
+  date: string;
   effectiveFrom: string | null;
+  /** The next planned menu price change after `date`, if any. */
+  nextChangeFrom: string | null;
   generatedOn: string;
   taxNote: string;
   sizes: { sizeId: string; name: string; volumeMl: string }[];
@@ -14,12 +18,13 @@ export interface PriceList {
   allergenCaution: string;
 }
 
-export const priceListQueryOptions = () =>
+/** The prices in force on `date` (default today, planned prices included from their date). */
+export const priceListQueryOptions = (date?: string) =>
   queryOptions({
-    queryKey: ['reprice', 'price-list'] as const,
-    queryFn: () => apiClient.get<PriceList>(paths.api.priceList()),
+    queryKey: ['reprice', 'price-list', date ?? 'today'] as const,
+    queryFn: () => apiClient.get<PriceList>(paths.api.priceList(date)),
   });
 
-export function usePriceList() {
-  return useQuery(priceListQueryOptions());
+export function usePriceList(date?: string) {
+  return useQuery(priceListQueryOptions(date));
 }

@@ -31,7 +31,7 @@ export function ApplyPanel({ impact, scenarioId, keepLadder, today, onApplied }:
         onSuccess: (r) => {
           setAsking(false);
           setDone(r.applied.length);
-          toast.notify(`${r.applied.length} new prices applied from ${formatDate(r.effectiveFrom)}.`);
+          toast.notify(r.planned ? `${r.applied.length} new prices scheduled for ${formatDate(r.effectiveFrom)}; the current prices stay until then.` : `${r.applied.length} new prices applied from ${formatDate(r.effectiveFrom)}.`);
           onApplied();
         },
       },
@@ -54,7 +54,7 @@ export function ApplyPanel({ impact, scenarioId, keepLadder, today, onApplied }:
       )}
       {done !== null && (
         <p role="status" className="text-sm">
-          {done} prices applied. <TextLink to={paths.priceList.href()}>Print the price list</TextLink>
+          {done} prices {effectiveFrom > today ? `scheduled for ${formatDate(effectiveFrom)}` : 'applied'}. <TextLink to={paths.priceList.href()}>Print the price list</TextLink>
         </p>
       )}
       <ConfirmDialog
@@ -62,7 +62,11 @@ export function ApplyPanel({ impact, scenarioId, keepLadder, today, onApplied }:
         title={`Apply ${n} new price${n === 1 ? '' : 's'}?`}
         consequence={
           <div className="flex flex-col gap-2">
-            <p>These become the menu prices from {formatDate(effectiveFrom)}; each change is kept in the drink&apos;s price history. The current prices are replaced:</p>
+            {effectiveFrom > today ? (
+              <p>These are scheduled: the current prices stay until {formatDate(effectiveFrom)}, then these become the menu prices. Each change shows as planned in the drink&apos;s price history and can be cancelled before its date:</p>
+            ) : (
+              <p>These become the menu prices from {formatDate(effectiveFrom)}; each change is kept in the drink&apos;s price history. The current prices are replaced:</p>
+            )}
             <ul className="max-h-48 overflow-auto text-sm">
               {impact.prices.map((p) => (
                 <li key={p.drinkSizeId} className="tabular-nums">

@@ -14,8 +14,9 @@ export function PriceListSheet({ list }: { list: PriceList }) {
       <header className="flex flex-wrap items-baseline justify-between gap-2 border-b-2 border-ink pb-3">
         <h2 className="text-3xl font-bold">{list.business.name}</h2>
         <p className="text-sm">
-          Prices from {formatDate(list.effectiveFrom ?? list.generatedOn)} · {list.taxNote}
+          Prices effective from {formatDate(list.effectiveFrom ?? list.date)} · {list.taxNote}
         </p>
+        {list.nextChangeFrom && <p className="w-full text-sm text-muted print:hidden">New prices are scheduled from {formatDate(list.nextChangeFrom)}: choose that date to print them.</p>}
       </header>
       {categories.map((cat) => (
         <section key={cat} aria-label={cat} className="break-inside-avoid">
