@@ -1,0 +1,31 @@
+import { ButtonLink } from '../../components/ui/button';
+import { EmptyState } from '../../components/ui/empty-state';
+import { ErrorState } from '../../components/ui/error-state';
+import { PageHeader } from '../../components/ui/page-header';
+import { SkeletonRows } from '../../components/ui/skeleton';
+import { paths } from '../../lib/paths';
+import { useMe } from '../../features/auth/api/get-me';
+import { useSuppliers } from '../../features/suppliers/api/get-suppliers';
+import { SuppliersTable } from '../../features/suppliers/components/suppliers-table';
+
+export function SuppliersRoute() {
+  const me = useMe();
+  const suppliers = useSuppliers();
+  const currency = me.data?.business.currency ?? 'GBP';
+  const canEdit = me.data?.user.role === 'owner' || me.data?.user.role === 'manager';
+  const add = canEdit ? <ButtonLink to={paths.newSupplier.href()}>Add a supplier</ButtonLink> : undefined;
+  return (
+    <div className="flex max-w-6xl flex-col gap-6">
+      <PageHeader title="Suppliers" description="Who you buy from, where their orders go, their minimum, the days they deliver and how they are paid." action={add} />
+      {suppliers.isPending ? (
+        <SkeletonRows rows={4} label="Loading the suppliers" />
+      ) : suppliers.isError ? (
+        <ErrorState error={suppliers.error} onRetry={() => suppliers.refetch()} />
+      ) : suppliers.data.suppliers.length === 0 ? (
+        <EmptyState title="No suppliers yet" next="Add the dairy, roaster or wholesaler you order from, with the e-mail address their orders go to." action={add} />
+      ) : (
+        <SuppliersTable suppliers={suppliers.data.suppliers} currency={currency} />
+      )}
+    </div>
+  );
+}
