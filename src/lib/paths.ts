@@ -53,6 +53,16 @@ export const paths = {
   waste: { path: '/waste', href: () => '/waste' },
   tillSales: { path: '/till-sales', href: () => '/till-sales' },
 
+  // Suppliers, stock and purchase orders.
+  newSupplier: { path: '/suppliers/new', href: () => '/suppliers/new' },
+  supplier: { path: '/suppliers/:supplierId', href: (id: string) => `/suppliers/${encodeURIComponent(id)}` },
+  stock: { path: '/stock', href: (supplierId?: string) => withQuery('/stock', { supplierId }) },
+  orders: { path: '/orders', href: () => '/orders' },
+  newOrder: { path: '/orders/new', href: (q: { siteId?: string; supplierId?: string; suggested?: boolean } = {}) => withQuery('/orders/new', { siteId: q.siteId, supplierId: q.supplierId, suggested: q.suggested ? '1' : undefined }) },
+  order: { path: '/orders/:orderId', href: (id: string) => `/orders/${encodeURIComponent(id)}` },
+  editOrder: { path: '/orders/:orderId/edit', href: (id: string) => `/orders/${encodeURIComponent(id)}/edit` },
+  receiveOrder: { path: '/orders/:orderId/receive', href: (id: string) => `/orders/${encodeURIComponent(id)}/receive` },
+
   api: {
     cogs: (month: string, siteId: string | null) => withQuery('/api/reports/cogs', { month, siteId: siteId ?? undefined }),
     cogsCsv: (month: string, siteId: string | null) => withQuery('/api/reports/cogs.csv', { month, siteId: siteId ?? undefined }),
@@ -126,6 +136,18 @@ export const paths = {
     priceListCsv: (date?: string) => (date ? `/api/price-list.csv?date=${encodeURIComponent(date)}` : '/api/price-list.csv'),
     repriceScheduled: () => '/api/reprice/scheduled',
     repriceCancelScheduled: (id: string) => `/api/reprice/scheduled/${encodeURIComponent(id)}/cancel`,
+    // Suppliers, stock and purchase orders.
+    supplier: (id: string) => `/api/suppliers/${encodeURIComponent(id)}`,
+    supplierOrdering: (id: string) => `/api/suppliers/${encodeURIComponent(id)}/ordering`,
+    supplierCatalogue: (id: string) => `/api/suppliers/${encodeURIComponent(id)}/catalogue`,
+    siteStock: (siteId: string) => `/api/sites/${encodeURIComponent(siteId)}/stock`,
+    siteStockItem: (siteId: string, packId: string) => `/api/sites/${encodeURIComponent(siteId)}/stock/${encodeURIComponent(packId)}`,
+    suggestedOrder: (siteId: string, supplierId: string) => `/api/sites/${encodeURIComponent(siteId)}/suggested-order?supplierId=${encodeURIComponent(supplierId)}`,
+    purchaseOrders: (q: { siteId?: string; supplierId?: string; status?: string } = {}) => withQuery('/api/purchase-orders', q),
+    purchaseOrder: (id: string) => `/api/purchase-orders/${encodeURIComponent(id)}`,
+    purchaseOrderAction: (id: string, action: 'place' | 'pay' | 'payment/check' | 'receive' | 'close' | 'cancel' | 'pack-prices' | 'invoice') =>
+      `/api/purchase-orders/${encodeURIComponent(id)}/${action}`,
+    paymentCard: () => '/api/payments/card',
   },
 } as const;
 
