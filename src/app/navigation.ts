@@ -38,6 +38,9 @@ export const navigation: readonly NavEntry[] = [
   entry(paths.stock, 'Stock', ['owner', 'manager', 'bookkeeper'], 'Stock on hand at the site, par levels and reorder points, and the suggested order per supplier.'),
   entry(paths.orders, 'Purchase orders', ['owner', 'manager', 'bookkeeper'], 'Draft, place, pay and receive orders to suppliers, with their timeline and invoices.'),
   entry(paths.suppliers, 'Suppliers', ['owner', 'manager', 'bookkeeper'], 'Who you buy from, where orders go, minimums, delivery days and how they are paid.'),
+  entry(paths.stockCounts, 'Stock counts', everyone, 'Count the stock on the shelves, pack by pack, by storage area, on your phone.'),
+  entry(paths.waste, 'Waste', everyone, 'Record milk poured away, remade drinks and out-of-date stock, valued at cost.'),
+  entry(paths.tillSales, 'Till sales', ['owner', 'manager', 'bookkeeper'], "Import the till's CSV of sales, match its items to your drinks, or enter a day by hand."),
   entry(paths.monthEnd, 'Month end', ['owner', 'manager', 'bookkeeper'], 'Cost of goods for a month, actual against theoretical, CSV exports and closing the month.'),
 ];
 

@@ -14,6 +14,10 @@ import { SignInRoute } from './routes/sign-in';
 import { SignUpRoute } from './routes/sign-up';
 import { TeamRoute } from './routes/team';
 import { MonthEndRoute } from './routes/month-end';
+import { StockCountsRoute } from './routes/stock-counts';
+import { StockCountRoute } from './routes/stock-count';
+import { WasteRoute } from './routes/waste';
+import { TillSalesRoute } from './routes/till-sales';
 import { PriceHistoryRoute } from './routes/price-history';
 import { PriceListRoute } from './routes/price-list';
 import { RepricingRoute } from './routes/repricing';
@@ -79,6 +83,10 @@ export const router = createBrowserRouter([
           { path: paths.priceList.path, element: <PriceListRoute /> },
           { path: paths.priceHistory.path, element: <PriceHistoryRoute /> },
           { path: paths.monthEnd.path, element: <MonthEndRoute /> },
+          { path: paths.stockCounts.path, element: <StockCountsRoute /> },
+          { path: paths.stockCount.path, element: <StockCountRoute /> },
+          { path: paths.waste.path, element: <WasteRoute /> },
+          { path: paths.tillSales.path, element: <TillSalesRoute /> },
           { path: paths.suppliers.path, element: <SuppliersRoute /> },
           { path: paths.newSupplier.path, element: <SupplierRoute /> },
           { path: paths.supplier.path, element: <SupplierRoute /> },

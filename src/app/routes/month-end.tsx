@@ -11,20 +11,8 @@ import { useCogs } from '../../features/books/api/get-cogs';
 import { CategoryChart, CogsTrendChart, SupplierChart } from '../../features/books/components/cogs-charts';
 import { CogsSummary, CogsTable } from '../../features/books/components/cogs-table';
 import { MonthClose } from '../../features/books/components/month-close';
-import { useMe } from '../../features/auth/api/get-me';
-import { useSites } from '../../features/sites/api/get-sites';
-import { useStoredSiteId } from '../../lib/current-site';
+import { useWorkSite } from './work-site';
 import { buttonClasses } from '../../components/ui/button';
-
-/** The site chosen in the top bar (the first site until one is chosen), and the list of sites. */
-function useWorkSite() {
-  const me = useMe();
-  const sites = useSites();
-  const [stored] = useStoredSiteId(me.data?.business.id);
-  const list = sites.data?.sites ?? [];
-  const site = list.find((s) => s.id === stored) ?? list[0] ?? null;
-  return { site, sites: list, role: me.data?.user.role ?? null, pending: me.isPending || sites.isPending };
-}
 
 function lastMonth(): string {
   const d = new Date();
