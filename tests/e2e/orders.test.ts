@@ -134,6 +134,7 @@ test('owner orders from the dairy and pays by test card; the manager receives it
     await shot(page, 'pay-dialog');
     await dialog.getByRole('button', { name: `Pay ${money(order.total)}` }).click();
     await page.getByText('Paid by card').first().waitFor();
+    await dialog.waitFor({ state: 'hidden' });
     order = await api<Order>(page, `/api/purchase-orders/${orderId}`);
     expect(order.status).toBe('paid');
     expect(order.payment?.status).toBe('succeeded');

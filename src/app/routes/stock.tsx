@@ -29,7 +29,7 @@ export function StockRoute() {
   const supplierId = list.find((s) => s.id === params.get('supplierId'))?.id ?? list[0]?.id;
 
   return (
-    <div className="flex max-w-6xl flex-col gap-8">
+    <div className="flex max-w-6xl flex-col gap-6">
       <PageHeader
         title={site ? `Stock and ordering at ${site.name}` : 'Stock and ordering'}
         description="What is on hand in packs, the par level each pack is topped up to, the reorder point that triggers it, and the order each supplier needs. Change site in the top bar."

@@ -206,7 +206,7 @@ export function OrderDetail({ order, role, devMailboxUrl }: { order: Order; role
         </Card>
       </div>
 
-      {owner && <PayDialog key={`pay-${order.version}`} order={order} open={paying} onClose={() => setPaying(false)} />}
+      {owner && <PayDialog order={order} open={paying} onClose={() => setPaying(false)} />}
       <ConfirmDialog
         open={cancelling}
         title={`Cancel ${order.number}?`}

@@ -123,7 +123,7 @@ function Form({ target, packs }: { target: EditorTarget; packs: CataloguePack[] 
                       <Td>{p?.description ?? 'A pack no longer sold'}</Td>
                       <Td figure>{p?.price ? formatMoney(p.price, currency) : '—'}</Td>
                       <Td figure>
-                        <Input inputMode="numeric" className="ml-auto w-20 py-1" aria-label={`Packs of ${p?.description ?? 'this pack'}`}
+                        <Input inputMode="numeric" className="ml-auto w-20! py-1" aria-label={`Packs of ${p?.description ?? 'this pack'}`}
                           aria-invalid={err ? true : undefined} {...register(`lines.${i}.quantity`)} />
                         {err && <p className="mt-1 text-xs font-medium text-rose">{err}</p>}
                       </Td>

@@ -108,23 +108,23 @@ export function ReceiveForm({ order, onReceived }: { order: Order; onReceived: (
               const priceChanged = v && differs(v.unitPrice, line.unitPrice);
               return (
                 <tr key={f.key} data-line={line.packId}>
-                  <Td>
+                  <Td className="min-w-40">
                     {line.description}
                     {line.quantityReceived !== '0' && <span className="block text-xs text-muted">{formatQuantity(line.quantityReceived)} received before</span>}
                   </Td>
                   <Td figure>{formatQuantity(line.quantity)}</Td>
                   <Td figure>
-                    <Input inputMode="decimal" className="ml-auto w-20 py-1" aria-label={`Packs received, ${line.description}`} aria-invalid={e?.quantityReceived ? true : undefined} {...register(`lines.${i}.quantityReceived`)} />
+                    <Input inputMode="decimal" className="ml-auto w-20! py-1" aria-label={`Packs received, ${line.description}`} aria-invalid={e?.quantityReceived ? true : undefined} {...register(`lines.${i}.quantityReceived`)} />
                     {e?.quantityReceived && <p className="mt-1 text-xs font-medium text-rose">{e.quantityReceived.message}</p>}
-                    {short && <span className="mt-1 inline-block"><StatusMark tone="attention">short</StatusMark></span>}
+                    {short && <span className="mt-1 inline-block whitespace-nowrap"><StatusMark tone="attention">short</StatusMark></span>}
                   </Td>
                   <Td figure>
                     <div className="flex items-center justify-end gap-1">
-                      <Input inputMode="decimal" className="w-24 py-1" aria-label={`Invoice price, ${line.description}`} aria-invalid={e?.unitPrice ? true : undefined} {...register(`lines.${i}.unitPrice`)} />
+                      <Input inputMode="decimal" className="w-24! py-1" aria-label={`Invoice price, ${line.description}`} aria-invalid={e?.unitPrice ? true : undefined} {...register(`lines.${i}.unitPrice`)} />
                       <span className="text-xs text-muted">{currency}</span>
                     </div>
                     {e?.unitPrice && <p className="mt-1 text-xs font-medium text-rose">{e.unitPrice.message}</p>}
-                    {priceChanged && <span className="mt-1 inline-block"><StatusMark tone="info">ordered at {formatMoney(line.unitPrice, currency)}</StatusMark></span>}
+                    {priceChanged && <span className="mt-1 inline-block whitespace-nowrap"><StatusMark tone="info">ordered at {formatMoney(line.unitPrice, currency)}</StatusMark></span>}
                   </Td>
                   <Td>
                     <Input className="min-w-40 py-1" aria-label={`Note, ${line.description}`} {...register(`lines.${i}.note`)} />

@@ -47,11 +47,11 @@ function LevelCells({ siteId, item, onSaved }: { siteId: string; item: StockItem
     <>
       <Td figure>
         <Input inputMode="decimal" aria-label={`Par level, ${item.description}`} aria-invalid={error ? true : undefined} aria-describedby={error ? errorId : undefined}
-          className="w-20 py-1" value={par} onChange={(e) => setPar(e.target.value)} onKeyDown={onKeyDown} />
+          className="ml-auto w-20! py-1" value={par} onChange={(e) => setPar(e.target.value)} onKeyDown={onKeyDown} />
       </Td>
       <Td figure>
         <Input inputMode="decimal" aria-label={`Reorder point, ${item.description}`} aria-invalid={error ? true : undefined} aria-describedby={error ? errorId : undefined}
-          className="w-20 py-1" value={reorderPoint} onChange={(e) => setReorderPoint(e.target.value)} onKeyDown={onKeyDown} />
+          className="ml-auto w-20! py-1" value={reorderPoint} onChange={(e) => setReorderPoint(e.target.value)} onKeyDown={onKeyDown} />
         {error && <p id={errorId} className="mt-1 text-left text-xs font-medium text-rose">{error}</p>}
       </Td>
       <Td className="w-20">
