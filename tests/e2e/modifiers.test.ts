@@ -157,7 +157,8 @@ test('the owner reviews the oat swap per size, changes its upcharge, and adds a 
     await page.waitForURL((u) => u.pathname === '/modifiers');
     await page.getByText(`${name} deleted.`).waitFor();
     expect(await page.evaluate(async (u) => (await fetch(u)).status, `/api/modifiers/${id}`)).toBe(404);
-    expect(await page.locator(`tr[data-modifier="${name}"]`).count()).toBe(0);
+    // The list refetches after the toast: wait for it rather than read it once.
+    await expect.poll(() => page.locator(`tr[data-modifier="${name}"]`).count()).toBe(0);
   } finally {
     // Put the demo's oat upcharge back for whoever reads it next.
     if (oat) await s.db('modifiers').where({ id: oat.id }).update({ upcharge: oat.upcharge });
