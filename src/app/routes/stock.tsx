@@ -55,8 +55,8 @@ export function StockRoute() {
             <div>
               <h2 id="stock-heading" className="text-lg font-bold text-ink">Stock on hand</h2>
               <p className="max-w-prose text-sm text-muted">
-                {stock.data?.countedOn ? `The stock count of ${formatDate(stock.data.countedOn)}` : 'No stock count yet: the deliveries received'}, plus deliveries since, minus recorded waste.
-                Till sales are not taken off yet.{canEdit ? ' Change a par level or reorder point and press Save (or Enter).' : ''}
+                {stock.data?.countedOn ? `The stock count of ${formatDate(stock.data.countedOn)}` : 'No stock count yet: the deliveries received'}, plus deliveries since, minus recorded waste and what the till sales since used by their recipes.
+                {canEdit ? ' Change a par level or reorder point and press Save (or Enter).' : ''}
               </p>
             </div>
             {stock.isPending ? (
