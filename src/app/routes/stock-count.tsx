@@ -19,7 +19,7 @@ export function StockCountRoute() {
       </TextLink>
       <PageHeader
         title={count ? `Stock count, ${formatDate(count.countDate)}` : 'Stock count'}
-        description={count ? `${count.siteName}. Each line saves as you go: whole packs and the open pack, or the amount on hand.` : undefined}
+        description={count ? (count.status === 'finished' ? `${count.siteName}. This count is finished and can no longer change.` : `${count.siteName}. Each line saves as you go: whole packs and the open pack, or the amount on hand.`) : undefined}
       />
       {sheet.isPending ? (
         <SkeletonRows rows={8} label="Loading the count sheet" />

@@ -44,6 +44,12 @@ function packLabel(item: SheetItem): string {
   return new D(item.pack.count).eq(1) ? one : `${formatQuantity(item.pack.count)} × ${one}`;
 }
 
+/** The pack as bought; its size is added when the description does not already say it. */
+function describePack(item: SheetItem): string {
+  const size = packLabel(item);
+  return item.description.includes(size) ? item.description : `${item.description} (pack of ${size})`;
+}
+
 const bigInput = cx('w-full rounded-md border border-rule bg-card px-3 py-3 text-right text-xl tabular-nums text-ink', focusRing);
 
 /**
@@ -90,14 +96,10 @@ export function CountLine({ countId, item, currency, readOnly }: { countId: stri
 
   return (
     <li className="border-t border-rule py-4 first:border-t-0" data-pack={item.packId}>
-      <div className="flex flex-wrap items-baseline justify-between gap-x-3">
-        <h3 id={`${id}-name`} className="text-lg font-bold text-ink">
-          {item.ingredient}
-        </h3>
-        <p className="text-sm text-muted">
-          {item.description} · pack of {packLabel(item)}
-        </p>
-      </div>
+      <h3 id={`${id}-name`} className="text-lg font-bold text-ink">
+        {item.ingredient}
+      </h3>
+      <p className="text-sm text-muted">{describePack(item)}</p>
       {readOnly ? (
         <p className="mt-2 text-lg tabular-nums">
           {item.packs === null ? 'Not counted' : `${formatQuantity(item.packs)} packs`}
@@ -116,7 +118,7 @@ export function CountLine({ countId, item, currency, readOnly }: { countId: stri
                 onClick={() => update({ mode: m })}
                 className={cx('min-h-11 px-4 font-medium first:rounded-l-md last:rounded-r-md disabled:opacity-50', focusRing, state.mode === m ? 'bg-slate text-white' : 'bg-card text-ink')}
               >
-                {m === 'packs' ? 'Packs' : `In ${baseSymbol}`}
+                {m === 'packs' ? 'Packs' : item.baseUnit === 'each' ? 'Singly' : `In ${baseSymbol}`}
               </button>
             ))}
           </div>
@@ -151,7 +153,7 @@ export function CountLine({ countId, item, currency, readOnly }: { countId: stri
                       aria-checked={state.open === o.value}
                       aria-label={o.value === '0' ? 'No open pack' : `${o.label} of a pack open`}
                       onClick={() => update({ open: o.value }, true)}
-                      className={cx('min-h-12 min-w-12 flex-1 rounded-md border text-lg font-medium', focusRing, state.open === o.value ? 'border-slate bg-slate text-white' : 'border-rule bg-card text-ink')}
+                      className={cx('min-h-12 min-w-12 flex-1 rounded-md border font-medium', o.value === '0' ? 'text-base' : 'text-lg', focusRing, state.open === o.value ? 'border-slate bg-slate text-white' : 'border-rule bg-card text-ink')}
                     >
                       {o.label}
                     </button>

@@ -16,6 +16,9 @@ interface Row {
   netSales: string;
 }
 
+/** The currency's sign ("£", "$") for beside the number field. */
+const currencySymbol = (currency: string) => new Intl.NumberFormat(undefined, { style: 'currency', currency }).formatToParts(0).find((p) => p.type === 'currency')?.value ?? currency;
+
 const blank = (key: number): Row => ({ key, drinkSizeId: '', quantity: '', netSales: '' });
 
 /**
@@ -65,7 +68,7 @@ export function ManualSales({ siteId, drinkSizes, currency }: { siteId: string; 
             <Field label="Cups sold">
               <Input inputMode="decimal" value={r.quantity} onChange={(e) => set(r.key, { quantity: e.target.value })} className="py-3" />
             </Field>
-            <Field label="Net sales" unit={currency}>
+            <Field label="Net sales" unit={currencySymbol(currency)}>
               <Input inputMode="decimal" value={r.netSales} onChange={(e) => set(r.key, { netSales: e.target.value })} className="py-3" />
             </Field>
             {rows.length > 1 && (

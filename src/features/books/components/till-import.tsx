@@ -298,11 +298,11 @@ export function TillImport({ siteId }: { siteId: string }) {
               <h3 id="errors-title" className="text-lg font-bold text-rose">
                 {preview.errorCount} {preview.errorCount === 1 ? 'line' : 'lines'} could not be read
               </h3>
-              <p className="mt-1 text-base">Correct them in the file (or check the columns above), then upload it again. Nothing of this file has been saved.</p>
+              <p className="mt-1 text-base">Correct {preview.errorCount === 1 ? 'it' : 'them'} in the file (or check the columns above), then upload it again. Nothing of this file has been saved.</p>
               <ul className="mt-3 flex flex-col gap-1 text-base" data-testid="import-errors">
                 {preview.errors.map((e) => (
                   <li key={`${e.line}-${e.message}`}>
-                    <span className="font-bold tabular-nums">Line {e.line}</span>: {e.message}
+                    <span className="font-bold tabular-nums">Line {e.line}</span>: {e.message.replace(/^Line \d+:\s*/, '')}
                   </li>
                 ))}
               </ul>
