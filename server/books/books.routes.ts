@@ -108,6 +108,9 @@ function wasteRoutes({ db }: AppDeps) {
   r.get('/api/waste', allow('stock.read'), async (req, res) => {
     res.json(await waste.listWaste(db, req.user!.businessId, parse(waste.wasteListQuery, req.query)));
   });
+  r.get('/api/waste/choices', allow('waste.write'), async (req, res) => {
+    res.json(await waste.wasteChoices(db, req.user!.businessId));
+  });
   r.post('/api/waste', allow('waste.write'), async (req, res) => {
     res.status(201).json(await waste.recordWaste(db, req.user!.businessId, req.user!.id, parse(waste.wasteInSchema, req.body)));
   });

@@ -6,7 +6,7 @@ import { writeMoney } from '../../src/shared/money';
 import { rules } from '../../src/shared/checks';
 import { UNIT_CODES } from '../../src/shared/units';
 import type { BuildLineRow, LineRow } from '../costing/cost-model.repo';
-import { decimalString, groupBy, isoDate, qty } from '../costing/shared';
+import { decimalString, groupBy, isoDate, qty, yieldBaseUnit } from '../costing/shared';
 import { badRequest, notFound } from '../errors';
 import { wasteInRange, type WasteRow } from './cogs.repo';
 import { CategorySplitter, loadMonthCosting } from './month-costing';
@@ -141,4 +141,26 @@ export async function deleteWaste(db: Knex, businessId: string, id: string) {
     await assertMonthOpen(trx, businessId, row.occurred_on);
     await trx('waste_entries').where({ id }).del();
   });
+}
+
+/**
+ * What waste can be recorded against, without any cost: the roles that record waste
+ * (baristas among them) may not read costs.
+ */
+export async function wasteChoices(db: Knex, businessId: string) {
+  const [ingredients, preparations, sizes] = await Promise.all([
+    db('ingredients').where({ business_id: businessId }).whereNull('archived_at').orderBy('name').select('id', 'name', 'base_unit'),
+    db('preparations').where({ business_id: businessId }).whereNull('archived_at').orderBy('name').select('id', 'name', 'yield_unit'),
+    db('drink_sizes as ds').join('drinks as d', 'd.id', 'ds.drink_id').join('cup_sizes as cs', 'cs.id', 'ds.size_id')
+      .where('ds.business_id', businessId).whereNull('d.archived_at')
+      .orderBy([{ column: 'd.name' }, { column: 'cs.position' }])
+      .select('ds.id', 'd.name as drink_name', 'cs.name as size_name'),
+  ]);
+  return {
+    choices: [
+      ...ingredients.map((i) => ({ kind: 'ingredient' as const, id: i.id as string, name: i.name as string, baseUnit: i.base_unit as string })),
+      ...preparations.map((p) => ({ kind: 'preparation' as const, id: p.id as string, name: p.name as string, baseUnit: yieldBaseUnit(p.yield_unit) ?? undefined })),
+      ...sizes.map((s) => ({ kind: 'drinkSize' as const, id: s.id as string, name: `${s.drink_name} (${s.size_name})` })),
+    ],
+  };
 }

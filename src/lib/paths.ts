@@ -78,6 +78,7 @@ export const paths = {
     countLine: (id: string, packId: string) => `/api/stock-counts/${encodeURIComponent(id)}/lines/${encodeURIComponent(packId)}`,
     finishCount: (id: string) => `/api/stock-counts/${encodeURIComponent(id)}/finish`,
     waste: (query: { siteId?: string; month?: string } = {}) => withQuery('/api/waste', query),
+    wasteChoices: () => '/api/waste/choices',
     wasteEntry: (id: string) => `/api/waste/${encodeURIComponent(id)}`,
     salesImports: (siteId?: string) => withQuery('/api/sales-imports', { siteId }),
     salesImport: (id: string) => `/api/sales-imports/${encodeURIComponent(id)}`,

@@ -1,47 +1,23 @@
-import { useMemo } from 'react';
-import { useQuery } from '@tanstack/react-query';
 import { EmptyState } from '../../components/ui/empty-state';
 import { ErrorState } from '../../components/ui/error-state';
 import { PageHeader } from '../../components/ui/page-header';
 import { SkeletonRows } from '../../components/ui/skeleton';
 import type { Role } from '../../lib/api-types';
-import { useWaste } from '../../features/books/api/waste';
+import { useWaste, useWasteChoices } from '../../features/books/api/waste';
 import { localMonth } from '../../features/books/components/dates';
-import { WasteForm, type WasteChoice } from '../../features/books/components/waste-form';
+import { WasteForm } from '../../features/books/components/waste-form';
 import { WasteList } from '../../features/books/components/waste-list';
-import { ingredientsQueryOptions } from '../../features/costing/api/get-ingredients';
-import { menuCostingQueryOptions } from '../../features/costing/api/get-menu-costing';
-import { preparationsQueryOptions } from '../../features/costing/api/get-preparations';
 import { useWorkSite } from './work-site';
 
-// Mirrors the server's capabilities: 'waste.write' and 'costs.read' (the item lists come from the costing API).
+// Mirrors the server's capability 'waste.write'.
 const WASTE_WRITERS: readonly Role[] = ['owner', 'barista', 'bookkeeper'];
-const COST_READERS: readonly Role[] = ['owner', 'manager', 'bookkeeper'];
-
-/** Ingredients, preparations and drinks by cup size, from the costing API, as waste choices. */
-function useWasteChoices(enabled: boolean) {
-  const ingredients = useQuery({ ...ingredientsQueryOptions(), enabled });
-  const preparations = useQuery({ ...preparationsQueryOptions(), enabled });
-  const menu = useQuery({ ...menuCostingQueryOptions(), enabled });
-  const choices = useMemo<WasteChoice[]>(
-    () => [
-      ...(ingredients.data?.ingredients ?? []).map((i) => ({ kind: 'ingredient' as const, id: i.id, name: i.name, baseUnit: i.baseUnit })),
-      ...(preparations.data?.preparations ?? []).map((p) => ({ kind: 'preparation' as const, id: p.id, name: p.name, baseUnit: p.baseUnit })),
-      ...(menu.data?.drinks ?? []).flatMap((d) => d.sizes.map((s) => ({ kind: 'drinkSize' as const, id: s.drinkSizeId, name: `${d.name} (${s.name})` }))),
-    ],
-    [ingredients.data, preparations.data, menu.data],
-  );
-  const first = [ingredients, preparations, menu].find((q) => q.isError);
-  return { choices, pending: enabled && (ingredients.isPending || preparations.isPending || menu.isPending), error: enabled ? first?.error : undefined };
-}
 
 export function WasteRoute() {
   const work = useWorkSite();
   const month = localMonth();
   const waste = useWaste(work.site?.id, month);
   const canWrite = work.role !== null && WASTE_WRITERS.includes(work.role);
-  const canList = work.role !== null && COST_READERS.includes(work.role);
-  const options = useWasteChoices(canWrite && canList);
+  const choices = useWasteChoices(canWrite);
   return (
     <div className="flex max-w-4xl flex-col gap-6 text-lg">
       <PageHeader title="Waste" description="Record what was thrown away and why. It is valued at cost on the day and shows in the month's figures." />
@@ -49,17 +25,13 @@ export function WasteRoute() {
         <SkeletonRows rows={3} label="Loading your site" />
       ) : !work.site ? (
         <EmptyState title="No site yet" next="An owner adds the business's sites in Settings; waste is kept per site." />
-      ) : canWrite && !canList ? (
-        <p role="note" className="rounded-md border border-butter bg-butter/20 px-4 py-3 text-base">
-          The list of items to record waste against is not open to your role yet. Ask an owner or the bookkeeper to record it for now.
-        </p>
       ) : canWrite ? (
-        options.pending ? (
+        choices.isPending ? (
           <SkeletonRows rows={4} label="Loading items" />
-        ) : options.error ? (
-          <ErrorState error={options.error} />
+        ) : choices.isError ? (
+          <ErrorState error={choices.error} onRetry={() => choices.refetch()} />
         ) : (
-          <WasteForm siteId={work.site.id} choices={options.choices} entries={waste.data?.entries} currency={waste.data?.currency} />
+          <WasteForm siteId={work.site.id} choices={choices.data.choices} entries={waste.data?.entries} currency={waste.data?.currency} />
         )
       ) : null}
       <section aria-labelledby="waste-month" className="flex flex-col gap-3">

@@ -69,6 +69,7 @@ export const routes: RouteCase[] = [
   { method: 'post', path: '/api/stock-counts/:id/finish', url: async (f) => `/api/stock-counts/${await openCount(f)}/finish`, expect: counting(200) },
   { method: 'delete', path: '/api/stock-counts/:id', url: async (f) => `/api/stock-counts/${await openCount(f)}`, expect: counting(204) },
 
+  { method: 'get', path: '/api/waste/choices', expect: statuses({ owner: 200, manager: 403, barista: 200, bookkeeper: 200 }) },
   { method: 'get', path: '/api/waste', url: (f) => `/api/waste?month=2026-11&siteId=${f.biz.siteIds[0]}`, expect: everyRoleSite },
   {
     method: 'post', path: '/api/waste',

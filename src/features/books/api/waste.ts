@@ -15,6 +15,24 @@ export function useWaste(siteId: string | undefined, month: string) {
   return useQuery(wasteQueryOptions(siteId, month));
 }
 
+export interface WasteChoiceRow {
+  kind: 'ingredient' | 'preparation' | 'drinkSize';
+  id: string;
+  name: string;
+  baseUnit?: 'g' | 'ml' | 'each';
+}
+
+/** What waste can be recorded against (no costs: baristas read it too). */
+export const wasteChoicesQueryOptions = () =>
+  queryOptions({
+    queryKey: [...booksKey, 'waste-choices'] as const,
+    queryFn: () => apiClient.get<{ choices: WasteChoiceRow[] }>(paths.api.wasteChoices()),
+  });
+
+export function useWasteChoices(enabled: boolean) {
+  return useQuery({ ...wasteChoicesQueryOptions(), enabled });
+}
+
 export interface WasteInput {
   siteId: string;
   occurredOn: string;
