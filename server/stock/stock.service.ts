@@ -130,7 +130,8 @@ export async function stockLevels(db: Knex, businessId: string, siteId: string):
     const m = movements.get(item.pack_id) as StockMovements;
     return { item, movements: m, onHand: m.counted.plus(m.received).minus(m.waste).minus(m.sales) };
   });
-  return { levels, countedOn: count?.count_date ?? null, notes: [...new Set(notes)] };
+  // Sorted so the page (and a test) sees the same order every time.
+  return { levels, countedOn: count?.count_date ?? null, notes: [...new Set(notes)].sort() };
 }
 
 function presentLevel(l: StockLevel) {
