@@ -4,11 +4,10 @@ import { EmptyState } from '../../../components/ui/empty-state';
 import { Field } from '../../../components/ui/field';
 import { Input, Select } from '../../../components/ui/input';
 import { StatusMark } from '../../../components/ui/status-mark';
-import { SortHeader, Table, Td, THead, useSortedRows } from '../../../components/ui/table';
+import { SortHeader, Table, Td, THead, useSortedRows, type SortValue } from '../../../components/ui/table';
 import { formatMoney, formatQuantity } from '../../../lib/format';
 import { paths } from '../../../lib/paths';
 import { ALLERGENS } from '../../../shared/allergens';
-import { dec } from '../../../shared/decimal';
 import { categoryLabels, type IngredientSummary } from '../api/types';
 import { CategoryOptions } from './options';
 import { unitSymbol } from './units';
@@ -28,8 +27,8 @@ export function IngredientsTable({ ingredients, currency }: { ingredients: Ingre
       ),
     [ingredients, search, category],
   );
-  const value = useCallback((i: IngredientSummary, key: SortKey): string | number => {
-    if (key === 'unitCost') return i.unitCost === null ? Number.POSITIVE_INFINITY : dec(i.unitCost).toNumber();
+  const value = useCallback((i: IngredientSummary, key: SortKey): SortValue => {
+    if (key === 'unitCost') return i.unitCost;
     if (key === 'category') return categoryLabels[i.category];
     if (key === 'pack') return i.costingPack?.description ?? '';
     if (key === 'supplier') return i.costingPack?.supplierName ?? '';

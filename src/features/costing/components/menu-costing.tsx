@@ -5,7 +5,7 @@ import { EmptyState } from '../../../components/ui/empty-state';
 import { Field } from '../../../components/ui/field';
 import { Input, Select } from '../../../components/ui/input';
 import { StatusMark } from '../../../components/ui/status-mark';
-import { SortHeader, Table, Td, THead, useSortedRows } from '../../../components/ui/table';
+import { SortHeader, Table, Td, THead, useSortedRows, type SortValue } from '../../../components/ui/table';
 import { formatDate, formatMoney } from '../../../lib/format';
 import { paths } from '../../../lib/paths';
 import { dec } from '../../../shared/decimal';
@@ -46,12 +46,6 @@ function statusOf(r: Row): { rank: number; label: string } {
   return { rank: 3, label: 'on target' };
 }
 
-/** Sort value of a decimal string column, blanks last. */
-function decimalSortValue(v: string | null): number {
-  // Sorting only orders rows for display; the figures themselves are never recomputed here.
-  return v === null ? Number.POSITIVE_INFINITY : dec(v).toNumber();
-}
-
 /** Every drink × cup size: cost, price, margin and suggested price, with those under target marked. */
 export function MenuCostingView({ data }: { data: MenuCosting }) {
   const rows = useMemo<Row[]>(
@@ -88,13 +82,13 @@ export function MenuCostingView({ data }: { data: MenuCosting }) {
       ),
     [rows, search, category, onlyBelow],
   );
-  const value = useCallback((r: Row, key: SortKey): string | number => {
+  const value = useCallback((r: Row, key: SortKey): SortValue => {
     switch (key) {
       case 'cost':
       case 'currentPrice':
       case 'marginPct':
       case 'suggestedPrice':
-        return decimalSortValue(r[key]);
+        return r[key];
       case 'status':
         return statusOf(r).rank;
       default:

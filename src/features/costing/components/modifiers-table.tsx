@@ -20,7 +20,7 @@ export const kindLabels = { add: 'Add-on', swap: 'Swap' } as const;
 export function ModifiersTable({ modifiers, sizes, currency }: { modifiers: Modifier[]; sizes: CupSize[]; currency: string }) {
   const [search, setSearch] = useState('');
   const shown = useMemo(() => modifiers.filter((m) => m.name.toLowerCase().includes(search.trim().toLowerCase())), [modifiers, search]);
-  const value = useCallback((m: Modifier, key: SortKey) => (key === 'upcharge' ? (m.upcharge ?? '-1') : m[key]), []);
+  const value = useCallback((m: Modifier, key: SortKey) => (key === 'upcharge' ? m.upcharge : m[key]), []);
   const { sorted, sort, onSort } = useSortedRows<Modifier, SortKey>(shown, { key: 'name', direction: 'asc' }, value);
   return (
     <div className="flex flex-col gap-4">

@@ -17,9 +17,9 @@ export function OrdersTable({ orders }: { orders: OrderSummary[] }) {
   const shown = useMemo(() => orders.filter((o) => !status || o.status === status), [orders, status]);
   const value = useCallback((o: OrderSummary, key: SortKey) => {
     if (key === 'supplier' || key === 'site') return o[key].name;
-    if (key === 'total') return Number(o.total);
+    if (key === 'total') return o.total;
     if (key === 'status') return STATUSES.indexOf(o.status);
-    return o[key] ?? '';
+    return o[key];
   }, []);
   const { sorted, sort, onSort } = useSortedRows<OrderSummary, SortKey>(shown, { key: 'createdAt', direction: 'desc' }, value);
   return (

@@ -23,7 +23,7 @@ export function SuppliersTable({ suppliers, currency }: { suppliers: Supplier[];
     const q = search.trim().toLowerCase();
     return suppliers.filter((s) => `${s.name} ${s.contactName ?? ''} ${s.orderEmail ?? ''}`.toLowerCase().includes(q));
   }, [suppliers, search]);
-  const value = useCallback((s: Supplier, key: SortKey) => (key === 'leadDays' ? s.leadDays : key === 'minimumOrder' ? Number(s.minimumOrder) : s[key]), []);
+  const value = useCallback((s: Supplier, key: SortKey) => s[key], []);
   const { sorted, sort, onSort } = useSortedRows<Supplier, SortKey>(shown, { key: 'name', direction: 'asc' }, value);
   return (
     <div className="flex flex-col gap-4">
