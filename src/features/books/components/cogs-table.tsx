@@ -1,7 +1,12 @@
+import { useCallback, useMemo, useState } from 'react';
+import { EmptyState } from '../../../components/ui/empty-state';
+import { Field } from '../../../components/ui/field';
+import { Select } from '../../../components/ui/input';
 import { StatusMark } from '../../../components/ui/status-mark';
-import { Table, Td, Th, THead } from '../../../components/ui/table';
+import { SortHeader, Table, TableFilters, Td, THead, useSortedRows } from '../../../components/ui/table';
 import { formatMoney } from '../../../lib/format';
-import type { CogsReport } from '../api/types';
+import { dec } from '../../../shared/decimal';
+import type { CogsReport, CogsRow } from '../api/types';
 
 const CATEGORY_NAMES: Record<string, string> = {
   coffee: 'Coffee', dairy: 'Dairy', 'plant-milk': 'Plant milk', 'syrup-sauce': 'Syrups and sauces', powder: 'Powders', tea: 'Tea', extras: 'Extras', packaging: 'Packaging', other: 'Other',
@@ -12,64 +17,89 @@ const pct = (v: string | null) => (v === null ? '—' : `${v} %`);
 
 /** Over or under theoretical, in words as well as colour. */
 function VarianceMark({ variance }: { variance: string }) {
-  const n = Number(variance);
-  if (n === 0) return null;
-  return <StatusMark tone={n > 0 ? 'bad' : 'good'}>{n > 0 ? 'over' : 'under'}</StatusMark>;
+  const sign = dec(variance).cmp(0);
+  if (sign === 0) return null;
+  return <StatusMark tone={sign > 0 ? 'bad' : 'good'}>{sign > 0 ? 'over' : 'under'}</StatusMark>;
 }
+
+type SortKey = keyof CogsRow;
+type Show = '' | 'over' | 'under';
+
+const COLUMNS: { key: Exclude<SortKey, 'category'>; label: string }[] = [
+  { key: 'opening', label: 'Opening stock' },
+  { key: 'purchases', label: 'Purchases' },
+  { key: 'closing', label: 'Closing stock' },
+  { key: 'actual', label: 'Actual cost' },
+  { key: 'theoretical', label: 'Theoretical cost' },
+  { key: 'variance', label: 'Variance' },
+  { key: 'variancePct', label: 'Variance %' },
+  { key: 'waste', label: 'Waste at cost' },
+];
 
 /** The month's cost of goods by ingredient category, with the totals row the CSV also ends with. */
 export function CogsTable({ report }: { report: CogsReport }) {
   const m = (v: string) => formatMoney(v, report.currency);
   const t = report.totals;
+  const [show, setShow] = useState<Show>('');
+  const shown = useMemo(() => report.rows.filter((r) => !show || dec(r.variance).cmp(0) === (show === 'over' ? 1 : -1)), [report.rows, show]);
+  const value = useCallback((r: CogsRow, key: SortKey) => (key === 'category' ? categoryName(r.category) : r[key]), []);
+  const { sorted, sort, onSort } = useSortedRows<CogsRow, SortKey>(shown, null, value);
   return (
-    <Table caption="Cost of goods by ingredient category">
-      <THead>
-        <tr>
-          <Th>Category</Th>
-          <Th figure>Opening stock</Th>
-          <Th figure>Purchases</Th>
-          <Th figure>Closing stock</Th>
-          <Th figure>Actual cost</Th>
-          <Th figure>Theoretical cost</Th>
-          <Th figure>Variance</Th>
-          <Th figure>Variance %</Th>
-          <Th figure>Waste at cost</Th>
-        </tr>
-      </THead>
-      <tbody>
-        {report.rows.map((r) => (
-          <tr key={r.category}>
-            <Td>{categoryName(r.category)}</Td>
-            <Td figure>{m(r.opening)}</Td>
-            <Td figure>{m(r.purchases)}</Td>
-            <Td figure>{m(r.closing)}</Td>
-            <Td figure>{m(r.actual)}</Td>
-            <Td figure>{m(r.theoretical)}</Td>
-            <Td figure>
-              <span className="inline-flex items-center gap-2">
-                <VarianceMark variance={r.variance} />
-                {m(r.variance)}
-              </span>
-            </Td>
-            <Td figure>{pct(r.variancePct)}</Td>
-            <Td figure>{m(r.waste)}</Td>
+    <div className="flex flex-col gap-4">
+      <TableFilters shown={shown.length} total={report.rows.length}>
+        <Field label="Show categories" className="w-64">
+          <Select value={show} onChange={(e) => setShow(e.target.value as Show)}>
+            <option value="">Every category</option>
+            <option value="over">Over theoretical cost</option>
+            <option value="under">Under theoretical cost</option>
+          </Select>
+        </Field>
+      </TableFilters>
+      <Table caption="Cost of goods by ingredient category">
+        <THead>
+          <tr>
+            <SortHeader label="Category" sortKey="category" sort={sort} onSort={onSort} />
+            {COLUMNS.map((c) => (
+              <SortHeader key={c.key} label={c.label} sortKey={c.key} sort={sort} onSort={onSort} figure />
+            ))}
           </tr>
-        ))}
-      </tbody>
-      <tfoot>
-        <tr className="font-bold" data-testid="cogs-totals">
-          <Td>All categories</Td>
-          <Td figure data-figure="opening">{m(t.opening)}</Td>
-          <Td figure data-figure="purchases">{m(t.purchases)}</Td>
-          <Td figure data-figure="closing">{m(t.closing)}</Td>
-          <Td figure data-figure="actual">{m(t.actual)}</Td>
-          <Td figure data-figure="theoretical">{m(t.theoretical)}</Td>
-          <Td figure data-figure="variance">{m(t.variance)}</Td>
-          <Td figure>{pct(t.variancePct)}</Td>
-          <Td figure data-figure="waste">{m(t.waste)}</Td>
-        </tr>
-      </tfoot>
-    </Table>
+        </THead>
+        <tbody>
+          {sorted.map((r) => (
+            <tr key={r.category} data-category={r.category}>
+              <Td>{categoryName(r.category)}</Td>
+              <Td figure>{m(r.opening)}</Td>
+              <Td figure>{m(r.purchases)}</Td>
+              <Td figure>{m(r.closing)}</Td>
+              <Td figure>{m(r.actual)}</Td>
+              <Td figure>{m(r.theoretical)}</Td>
+              <Td figure>
+                <span className="inline-flex items-center gap-2">
+                  <VarianceMark variance={r.variance} />
+                  {m(r.variance)}
+                </span>
+              </Td>
+              <Td figure>{pct(r.variancePct)}</Td>
+              <Td figure>{m(r.waste)}</Td>
+            </tr>
+          ))}
+        </tbody>
+        <tfoot>
+          <tr className="font-bold" data-testid="cogs-totals">
+            <Td>All categories</Td>
+            <Td figure data-figure="opening">{m(t.opening)}</Td>
+            <Td figure data-figure="purchases">{m(t.purchases)}</Td>
+            <Td figure data-figure="closing">{m(t.closing)}</Td>
+            <Td figure data-figure="actual">{m(t.actual)}</Td>
+            <Td figure data-figure="theoretical">{m(t.theoretical)}</Td>
+            <Td figure data-figure="variance">{m(t.variance)}</Td>
+            <Td figure>{pct(t.variancePct)}</Td>
+            <Td figure data-figure="waste">{m(t.waste)}</Td>
+          </tr>
+        </tfoot>
+      </Table>
+      {sorted.length === 0 && <EmptyState title={`No category is ${show} theoretical cost`} next="Choose every category to see them all." />}
+    </div>
   );
 }
 

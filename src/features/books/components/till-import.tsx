@@ -1,15 +1,18 @@
-import { useId, useRef, useState, type FormEvent } from 'react';
+import { useCallback, useId, useMemo, useRef, useState, type FormEvent } from 'react';
 import { Button } from '../../../components/ui/button';
 import { Field } from '../../../components/ui/field';
 import { FormMessage } from '../../../components/ui/form-message';
 import { Select } from '../../../components/ui/input';
 import { StatusMark } from '../../../components/ui/status-mark';
-import { Table, Td, Th, THead } from '../../../components/ui/table';
+import { SortHeader, Table, TableFilters, TableSearch, Td, THead, useSortedRows } from '../../../components/ui/table';
+import { matchesSearch } from '../../../components/ui/table-rows';
 import { cx, focusRing } from '../../../components/ui/cx';
 import { isApiError } from '../../../lib/api-client';
 import { formatDate, formatMoney, formatQuantity } from '../../../lib/format';
 import { uploadTillFile, useAcceptImport, useDiscardImport, usePreviewImport } from '../api/sales-import';
 import type { ColumnMapping, DateFormat, ImportPreview, UploadResult } from '../api/types';
+
+type ImportError = ImportPreview['errors'][number];
 
 const COLUMN_FIELDS = [
   { key: 'date', label: 'Date', required: true },
@@ -120,30 +123,73 @@ function ColumnsStep({ upload, draft, setDraft, onCheck, busy, fieldErrors }: {
           </Select>
         </Field>
       </div>
-      {upload.sample.length > 0 && (
-        <Table caption="The first lines of the file">
-          <THead>
-            <tr>
-              {upload.headers.map((h) => (
-                <Th key={h}>{h}</Th>
-              ))}
-            </tr>
-          </THead>
-          <tbody>
-            {upload.sample.map((row, i) => (
-              <tr key={i}>
-                {row.map((cell, j) => (
-                  <Td key={j}>{cell}</Td>
-                ))}
-              </tr>
-            ))}
-          </tbody>
-        </Table>
-      )}
+      {upload.sample.length > 0 && <SampleTable headers={upload.headers} sample={upload.sample} />}
       <Button size="lg" className="self-start" onClick={onCheck} busy={busy} disabled={COLUMN_FIELDS.some((f) => f.required && !draft[f.key])}>
         Check the file
       </Button>
     </section>
+  );
+}
+
+/** The first lines of the file as read, sortable by any column (values are the file's own text). */
+function SampleTable({ headers, sample }: { headers: string[]; sample: string[][] }) {
+  const value = useCallback((row: string[], key: string) => row[Number(key)], []);
+  const { sorted, sort, onSort } = useSortedRows<string[], string>(sample, null, value);
+  return (
+    <Table caption="The first lines of the file">
+      <THead>
+        <tr>
+          {headers.map((h, j) => (
+            <SortHeader key={h} label={h} sortKey={String(j)} sort={sort} onSort={onSort} />
+          ))}
+        </tr>
+      </THead>
+      <tbody>
+        {sorted.map((row) => (
+          <tr key={sample.indexOf(row)}>
+            {row.map((cell, j) => (
+              <Td key={j}>{cell}</Td>
+            ))}
+          </tr>
+        ))}
+      </tbody>
+    </Table>
+  );
+}
+
+type ErrorKey = 'line' | 'message';
+const errorText = (e: ImportError) => e.message.replace(/^Line \d+:\s*/, '');
+
+/** The lines that could not be read, by line number; searchable when there are more than a few. */
+function ImportErrors({ errors }: { errors: ImportError[] }) {
+  const [search, setSearch] = useState('');
+  const shown = useMemo(() => errors.filter((e) => matchesSearch(search, errorText(e))), [errors, search]);
+  const value = useCallback((e: ImportError, key: ErrorKey) => (key === 'line' ? e.line : errorText(e)), []);
+  const { sorted, sort, onSort } = useSortedRows<ImportError, ErrorKey>(shown, { key: 'line', direction: 'asc' }, value);
+  return (
+    <div className="mt-3 flex flex-col gap-3">
+      {errors.length > 5 && (
+        <TableFilters shown={shown.length} total={errors.length}>
+          <TableSearch label="Search the errors" value={search} onChange={setSearch} placeholder="e.g. quantity" />
+        </TableFilters>
+      )}
+      <Table caption="Lines that could not be read" data-testid="import-errors">
+        <THead>
+          <tr>
+            <SortHeader label="Line" sortKey="line" sort={sort} onSort={onSort} figure className="w-24" />
+            <SortHeader label="What is wrong" sortKey="message" sort={sort} onSort={onSort} />
+          </tr>
+        </THead>
+        <tbody>
+          {sorted.map((e) => (
+            <tr key={`${e.line}-${e.message}`}>
+              <Td figure className="font-bold" data-col="line">{e.line}</Td>
+              <Td>{errorText(e)}</Td>
+            </tr>
+          ))}
+        </tbody>
+      </Table>
+    </div>
   );
 }
 
@@ -299,13 +345,7 @@ export function TillImport({ siteId }: { siteId: string }) {
                 {preview.errorCount} {preview.errorCount === 1 ? 'line' : 'lines'} could not be read
               </h3>
               <p className="mt-1 text-base">Correct {preview.errorCount === 1 ? 'it' : 'them'} in the file (or check the columns above), then upload it again. Nothing of this file has been saved.</p>
-              <ul className="mt-3 flex flex-col gap-1 text-base" data-testid="import-errors">
-                {preview.errors.map((e) => (
-                  <li key={`${e.line}-${e.message}`}>
-                    <span className="font-bold tabular-nums">Line {e.line}</span>: {e.message.replace(/^Line \d+:\s*/, '')}
-                  </li>
-                ))}
-              </ul>
+              <ImportErrors errors={preview.errors} />
               {preview.errors.length < preview.errorCount && <p className="mt-2 text-sm text-muted">The first {preview.errors.length} are listed.</p>}
             </section>
           )}
