@@ -19,6 +19,8 @@ export interface StockItemRow {
   base_unit: 'g' | 'ml' | 'each';
   density_g_per_ml: string | null;
   costing_pack_id: string | null;
+  storage_area_id: string | null;
+  storage_area_name: string | null;
 }
 
 export async function stockItems(db: Db, businessId: string, siteId: string): Promise<StockItemRow[]> {
@@ -26,12 +28,13 @@ export async function stockItems(db: Db, businessId: string, siteId: string): Pr
     .join('packs as p', 'p.id', 's.pack_id')
     .join('ingredients as i', 'i.id', 'p.ingredient_id')
     .leftJoin('suppliers as su', 'su.id', 'p.supplier_id')
+    .leftJoin('storage_areas as sa', 'sa.id', 's.storage_area_id')
     .where({ 's.business_id': businessId, 's.site_id': siteId })
     .whereNull('p.archived_at')
     .orderBy([{ column: 'su.name', order: 'asc' }, { column: 'i.name', order: 'asc' }, { column: 'p.description', order: 'asc' }])
     .select('s.pack_id', 's.par_level', 's.reorder_point', 'p.description', 'p.supplier_code', 'p.count as pack_count', 'p.quantity as pack_quantity',
       'p.unit as pack_unit', 'p.supplier_id', 'su.name as supplier_name', 'i.id as ingredient_id', 'i.name as ingredient_name', 'i.base_unit',
-      'i.density_g_per_ml', 'i.costing_pack_id');
+      'i.density_g_per_ml', 'i.costing_pack_id', 's.storage_area_id', 'sa.name as storage_area_name');
 }
 
 /** The site's last finished stock count, if any. */

@@ -140,6 +140,7 @@ function presentLevel(l: StockLevel) {
     packId: l.item.pack_id,
     description: `${l.item.ingredient_name}: ${l.item.description}`,
     supplier: l.item.supplier_id ? { id: l.item.supplier_id, name: l.item.supplier_name } : null,
+    storageArea: l.item.storage_area_id ? { id: l.item.storage_area_id, name: l.item.storage_area_name } : null,
     onHand: writeQuantity(onHand),
     par: writeQuantity(l.item.par_level),
     reorderPoint: writeQuantity(l.item.reorder_point),

@@ -107,3 +107,12 @@ export async function serveDemo(): Promise<Served> {
   };
 }
 
+
+/** A GET through the page's own session (its cookie), as the client would make it; throws on an error status. */
+export async function getJson<T>(page: Page, url: string): Promise<T> {
+  return page.evaluate(async (u) => {
+    const r = await fetch(u);
+    if (!r.ok) throw new Error(`${u} answered ${r.status}`);
+    return r.json();
+  }, url) as Promise<T>;
+}

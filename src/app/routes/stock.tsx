@@ -7,10 +7,13 @@ import { PageHeader } from '../../components/ui/page-header';
 import { SkeletonRows } from '../../components/ui/skeleton';
 import { formatDate } from '../../lib/format';
 import { useMe } from '../../features/auth/api/get-me';
+import { booksKey } from '../../features/books/api/keys';
 import { ordersKey } from '../../features/orders/api/get-orders';
 import { SuggestedOrder } from '../../features/orders/components/suggested-order';
 import { useStock } from '../../features/stock/api/get-stock';
+import { useStorageAreas } from '../../features/stock/api/get-storage-areas';
 import { StockTable } from '../../features/stock/components/stock-table';
+import { StorageAreas } from '../../features/stock/components/storage-areas';
 import { useSuppliers } from '../../features/suppliers/api/get-suppliers';
 import { useWorkSite } from './work-site';
 
@@ -27,6 +30,9 @@ export function StockRoute() {
   const canEdit = role === 'owner' || role === 'manager';
   const list = suppliers.data?.suppliers ?? [];
   const supplierId = list.find((s) => s.id === params.get('supplierId'))?.id ?? list[0]?.id;
+  const areas = useStorageAreas(site?.id, canEdit);
+  // Count sheets group packs by area: a change here shows there on the next look.
+  const areasChanged = () => queryClient.invalidateQueries({ queryKey: booksKey });
 
   return (
     <div className="flex max-w-6xl flex-col gap-6">
@@ -66,9 +72,21 @@ export function StockRoute() {
             ) : stock.data.items.length === 0 ? (
               <EmptyState title="No packs held here yet" next="Packs appear once they have a supplier; then set a par level for each." />
             ) : (
-              <StockTable siteId={site.id} items={stock.data.items} canEdit={canEdit} onLevelSaved={() => queryClient.invalidateQueries({ queryKey: ordersKey })} />
+              <StockTable
+                siteId={site.id}
+                items={stock.data.items}
+                canEdit={canEdit}
+                areas={areas.data?.areas}
+                onLevelSaved={() => queryClient.invalidateQueries({ queryKey: ordersKey })}
+                onAreaChanged={areasChanged}
+              />
             )}
           </section>
+          {canEdit && (
+            <CardSection title="Storage areas">
+              <StorageAreas siteId={site.id} onChanged={areasChanged} />
+            </CardSection>
+          )}
         </>
       )}
     </div>

@@ -7,6 +7,8 @@ export interface StockItem {
   packId: string;
   description: string;
   supplier: { id: string; name: string } | null;
+  /** Where the pack is kept at the site; null when it is in no area yet. */
+  storageArea: { id: string; name: string } | null;
   onHand: string;
   par: string;
   reorderPoint: string;

@@ -9,9 +9,50 @@ import { isApiError } from '../../../lib/api-client';
 import { formatQuantity } from '../../../lib/format';
 import { stockLevelSchema } from '../../../shared/ordering';
 import type { StockItem } from '../api/get-stock';
+import type { StorageArea } from '../api/get-storage-areas';
+import { useSetPackStorageArea } from '../api/set-pack-storage-area';
 import { useUpdateStockLevel } from '../api/update-stock-level';
 
-type SortKey = 'description' | 'supplier' | 'onHand' | 'par' | 'reorderPoint' | 'suggested';
+type SortKey = 'description' | 'supplier' | 'area' | 'onHand' | 'par' | 'reorderPoint' | 'suggested';
+
+/** The pack's storage area, changed as soon as another is chosen. */
+function AreaCell({ siteId, item, areas, onChanged }: { siteId: string; item: StockItem; areas: StorageArea[]; onChanged?: () => void }) {
+  const set = useSetPackStorageArea(onChanged);
+  const { notify } = useToast();
+  const [error, setError] = useState<string | null>(null);
+  const errorId = `area-error-${item.packId}`;
+  return (
+    <Td>
+      <Select
+        aria-label={`Storage area, ${item.description}`}
+        aria-invalid={error ? true : undefined}
+        aria-describedby={error ? errorId : undefined}
+        className="w-40! py-1"
+        value={set.isPending ? (set.variables?.storageAreaId ?? '') : (item.storageArea?.id ?? '')}
+        disabled={set.isPending}
+        onChange={(e) => {
+          const storageAreaId = e.target.value || null;
+          setError(null);
+          set.mutate(
+            { siteId, packId: item.packId, storageAreaId },
+            {
+              onSuccess: (r) => notify(r.item.storageArea ? `${item.description}: now in ${r.item.storageArea.name}.` : `${item.description}: now in no storage area.`),
+              onError: (err) => setError(isApiError(err) ? (Object.values(err.fields)[0] ?? err.message) : 'That did not save. Try again.'),
+            },
+          );
+        }}
+      >
+        <option value="">No area</option>
+        {areas.map((a) => (
+          <option key={a.id} value={a.id}>
+            {a.name}
+          </option>
+        ))}
+      </Select>
+      {error && <p id={errorId} className="mt-1 text-xs font-medium text-rose">{error}</p>}
+    </Td>
+  );
+}
 
 /** Par level and reorder point of one pack, saved on its own; the same rule as the server gives the message. */
 function LevelCells({ siteId, item, onSaved }: { siteId: string; item: StockItem; onSaved?: () => void }) {
@@ -66,7 +107,15 @@ function LevelCells({ siteId, item, onSaved }: { siteId: string; item: StockItem
 }
 
 /** Every pack held at the site: on hand, par level, reorder point and what would be ordered. */
-export function StockTable({ siteId, items, canEdit, onLevelSaved }: { siteId: string; items: StockItem[]; canEdit: boolean; onLevelSaved?: () => void }) {
+export function StockTable({ siteId, items, canEdit, areas, onLevelSaved, onAreaChanged }: {
+  siteId: string;
+  items: StockItem[];
+  canEdit: boolean;
+  /** The site's storage areas, for choosing each pack's (owner and manager). */
+  areas?: StorageArea[];
+  onLevelSaved?: () => void;
+  onAreaChanged?: () => void;
+}) {
   const [search, setSearch] = useState('');
   const [supplierId, setSupplierId] = useState('');
   const suppliers = useMemo(() => [...new Map(items.filter((i) => i.supplier).map((i) => [i.supplier!.id, i.supplier!.name])).entries()].sort((a, b) => a[1].localeCompare(b[1])), [items]);
@@ -74,7 +123,10 @@ export function StockTable({ siteId, items, canEdit, onLevelSaved }: { siteId: s
     const q = search.trim().toLowerCase();
     return items.filter((i) => i.description.toLowerCase().includes(q) && (!supplierId || i.supplier?.id === supplierId));
   }, [items, search, supplierId]);
-  const value = useCallback((i: StockItem, key: SortKey) => (key === 'description' ? i.description : key === 'supplier' ? (i.supplier?.name ?? '') : Number(i[key])), []);
+  const value = useCallback(
+    (i: StockItem, key: SortKey) => (key === 'description' ? i.description : key === 'supplier' ? (i.supplier?.name ?? '') : key === 'area' ? (i.storageArea?.name ?? '') : Number(i[key])),
+    [],
+  );
   const { sorted, sort, onSort } = useSortedRows<StockItem, SortKey>(shown, { key: 'description', direction: 'asc' }, value);
 
   return (
@@ -100,6 +152,7 @@ export function StockTable({ siteId, items, canEdit, onLevelSaved }: { siteId: s
             <tr>
               <SortHeader label="Pack" sortKey="description" sort={sort} onSort={onSort} />
               <SortHeader label="Supplier" sortKey="supplier" sort={sort} onSort={onSort} />
+              <SortHeader label="Area" sortKey="area" sort={sort} onSort={onSort} />
               <SortHeader label="On hand" sortKey="onHand" sort={sort} onSort={onSort} figure />
               <SortHeader label="Par level" sortKey="par" sort={sort} onSort={onSort} figure />
               <SortHeader label="Reorder point" sortKey="reorderPoint" sort={sort} onSort={onSort} figure />
@@ -112,6 +165,11 @@ export function StockTable({ siteId, items, canEdit, onLevelSaved }: { siteId: s
               <tr key={i.packId} data-pack={i.packId}>
                 <Td>{i.description}</Td>
                 <Td>{i.supplier?.name ?? <span className="text-muted">none</span>}</Td>
+                {canEdit && areas ? (
+                  <AreaCell siteId={siteId} item={i} areas={areas} onChanged={onAreaChanged} />
+                ) : (
+                  <Td>{i.storageArea?.name ?? <span className="text-muted">none</span>}</Td>
+                )}
                 <Td figure>
                   {formatQuantity(i.onHand)}
                   {i.atOrBelowReorder && <span className="ml-2"><StatusMark tone="attention">low</StatusMark></span>}
