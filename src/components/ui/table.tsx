@@ -107,7 +107,9 @@ export function useSortedRows<T, K extends string>(rows: readonly T[], initial: 
   const [sort, setSort] = useState<SortState<K> | null>(initial);
   const sorted = useMemo(() => (sort ? sortRows(rows, (row) => value(row, sort.key), sort.direction) : [...rows]), [rows, sort, value]);
   const onSort = (key: K) => setSort((s) => (s?.key === key ? { key, direction: s.direction === 'asc' ? 'desc' : 'asc' } : { key, direction: 'asc' }));
-  return { sorted, sort, onSort };
+  /** A SortHeader for this table; figure columns (the default) are right-aligned. */
+  const header = (key: K, label: string, figure = true) => <SortHeader label={label} sortKey={key} sort={sort} onSort={onSort} figure={figure} />;
+  return { sorted, sort, onSort, header };
 }
 
 /** The search box above a table. */

@@ -1,17 +1,18 @@
-import { useState, type ReactNode } from 'react';
+import { useCallback, useState, type ReactNode } from 'react';
 import { Button, ButtonLink } from '../../../components/ui/button';
 import { Card, CardSection } from '../../../components/ui/card';
 import { ConfirmDialog } from '../../../components/ui/confirm-dialog';
 import { FormMessage } from '../../../components/ui/form-message';
 import { StatusMark } from '../../../components/ui/status-mark';
-import { Table, Td, Th, THead } from '../../../components/ui/table';
+import { SortHeader, Table, Td, THead, useSortedRows } from '../../../components/ui/table';
 import { useToast } from '../../../components/ui/toast';
 import { isApiError } from '../../../lib/api-client';
 import type { Role } from '../../../lib/api-types';
 import { formatDate, formatMoney, formatQuantity } from '../../../lib/format';
 import { paths } from '../../../lib/paths';
 import { useOrderAction } from '../api/order-actions';
-import type { Order } from '../api/types';
+import { dec } from '../../../shared/decimal';
+import type { Order, OrderLine } from '../api/types';
 import { InvoiceUpload } from './invoice-upload';
 import { OrderStatusMark, paymentWords, termsLabel } from './order-status';
 import { OrderTimeline } from './order-timeline';
@@ -32,6 +33,50 @@ function actionError(err: unknown): string {
   return err.message;
 }
 
+type LineKey = 'description' | 'quantity' | 'quantityReceived' | 'unitPrice' | 'taxPct' | 'lineTotal';
+
+/** The order's lines in the order they were entered, sortable by any column. */
+function OrderLines({ order }: { order: Order }) {
+  const { currency } = order;
+  const anyReceived = order.lines.some((l) => !dec(l.quantityReceived).isZero());
+  const value = useCallback((l: OrderLine, key: LineKey) => l[key], []);
+  const { sorted, sort, onSort } = useSortedRows<OrderLine, LineKey>(order.lines, null, value);
+  return (
+    <Table caption={`Lines of ${order.number}`}>
+      <THead>
+        <tr>
+          <SortHeader label="Pack" sortKey="description" sort={sort} onSort={onSort} />
+          <SortHeader label="Ordered" sortKey="quantity" sort={sort} onSort={onSort} figure />
+          {anyReceived && <SortHeader label="Received" sortKey="quantityReceived" sort={sort} onSort={onSort} figure />}
+          <SortHeader label="Unit price" sortKey="unitPrice" sort={sort} onSort={onSort} figure />
+          <SortHeader label="Tax" sortKey="taxPct" sort={sort} onSort={onSort} figure />
+          <SortHeader label="Line total" sortKey="lineTotal" sort={sort} onSort={onSort} figure />
+        </tr>
+      </THead>
+      <tbody>
+        {sorted.map((l) => (
+          <tr key={l.id} data-line={l.packId}>
+            <Td>
+              {l.description}
+              {l.note && <span className="block text-xs text-muted">{l.note}</span>}
+            </Td>
+            <Td figure>{formatQuantity(l.quantity)}</Td>
+            {anyReceived && (
+              <Td figure>
+                {formatQuantity(l.quantityReceived)}
+                {dec(l.quantityReceived).lt(dec(l.quantity)) && <span className="ml-2"><StatusMark tone="attention">short</StatusMark></span>}
+              </Td>
+            )}
+            <Td figure>{formatMoney(l.unitPrice, currency)}</Td>
+            <Td figure>{formatQuantity(l.taxPct)}%</Td>
+            <Td figure>{formatMoney(l.lineTotal, currency)}</Td>
+          </tr>
+        ))}
+      </tbody>
+    </Table>
+  );
+}
+
 /** One purchase order: its lines and totals, where it stands, what can be done next, and its timeline. */
 export function OrderDetail({ order, role, devMailboxUrl }: { order: Order; role: Role; devMailboxUrl: string | null }) {
   const action = useOrderAction();
@@ -49,7 +94,6 @@ export function OrderDetail({ order, role, devMailboxUrl }: { order: Order; role
   const canReceive = write && (order.status === 'paid' || order.status === 'part_received' || (order.status === 'placed' && !card));
   const canCancel = write && (order.status === 'draft' || (order.status === 'placed' && !confirming) || (order.status === 'paid' && owner));
   const canClose = write && (order.status === 'received' || order.status === 'part_received');
-  const anyReceived = order.lines.some((l) => l.quantityReceived !== '0');
 
   const run = (a: 'place' | 'close' | 'payment/check' | 'cancel', done: string) =>
     action.mutate({ id: order.id, action: a }, { onSuccess: () => { notify(done); setCancelling(false); } });
@@ -93,38 +137,7 @@ export function OrderDetail({ order, role, devMailboxUrl }: { order: Order; role
 
       <div className="grid gap-6 lg:grid-cols-[minmax(0,1fr)_20rem]">
         <div className="flex min-w-0 flex-col gap-6">
-          <Table caption={`Lines of ${order.number}`}>
-            <THead>
-              <tr>
-                <Th>Pack</Th>
-                <Th figure>Ordered</Th>
-                {anyReceived && <Th figure>Received</Th>}
-                <Th figure>Unit price</Th>
-                <Th figure>Tax</Th>
-                <Th figure>Line total</Th>
-              </tr>
-            </THead>
-            <tbody>
-              {order.lines.map((l) => (
-                <tr key={l.id} data-line={l.packId}>
-                  <Td>
-                    {l.description}
-                    {l.note && <span className="block text-xs text-muted">{l.note}</span>}
-                  </Td>
-                  <Td figure>{formatQuantity(l.quantity)}</Td>
-                  {anyReceived && (
-                    <Td figure>
-                      {formatQuantity(l.quantityReceived)}
-                      {Number(l.quantityReceived) < Number(l.quantity) && <span className="ml-2"><StatusMark tone="attention">short</StatusMark></span>}
-                    </Td>
-                  )}
-                  <Td figure>{formatMoney(l.unitPrice, currency)}</Td>
-                  <Td figure>{formatQuantity(l.taxPct)}%</Td>
-                  <Td figure>{formatMoney(l.lineTotal, currency)}</Td>
-                </tr>
-              ))}
-            </tbody>
-          </Table>
+          <OrderLines order={order} />
           <dl className="ml-auto grid min-w-64 grid-cols-[1fr_auto] gap-x-6 gap-y-1 text-sm" data-totals>
             <dt className="text-muted">Goods</dt><dd className="text-right tabular-nums" data-total="subtotal">{formatMoney(order.subtotal, currency)}</dd>
             <dt className="text-muted">Purchase tax</dt><dd className="text-right tabular-nums" data-total="tax">{formatMoney(order.tax, currency)}</dd>

@@ -1,14 +1,15 @@
-import { useId } from 'react';
+import { useCallback, useId } from 'react';
 import { ButtonLink } from '../../../components/ui/button';
 import { EmptyState } from '../../../components/ui/empty-state';
 import { ErrorState } from '../../../components/ui/error-state';
 import { Select } from '../../../components/ui/input';
 import { SkeletonRows } from '../../../components/ui/skeleton';
 import { StatusMark } from '../../../components/ui/status-mark';
-import { Table, Td, Th, THead } from '../../../components/ui/table';
+import { Table, Td, THead, useSortedRows } from '../../../components/ui/table';
 import { formatDate, formatMoney, formatQuantity } from '../../../lib/format';
 import { paths } from '../../../lib/paths';
 import { useSuggestedOrder } from '../api/get-suggested-order';
+import type { SuggestedOrder as Suggested } from '../api/types';
 import { termsLabel } from './order-status';
 
 /**
@@ -52,32 +53,7 @@ export function SuggestedOrder({ siteId, supplierId, suppliers, onSupplierChange
         <EmptyState title={`Nothing is low from ${s!.supplier.name}`} next="Every pack from them is above its reorder point. Start a blank order if you need something anyway." />
       ) : (
         <>
-          <Table caption={`Suggested order from ${s!.supplier.name}`}>
-            <THead>
-              <tr>
-                <Th>Pack</Th>
-                <Th figure>On hand</Th>
-                <Th figure>Reorder point</Th>
-                <Th figure>Par level</Th>
-                <Th figure>Order</Th>
-                <Th figure>Pack price</Th>
-                <Th figure>Line total</Th>
-              </tr>
-            </THead>
-            <tbody>
-              {s!.lines.map((l) => (
-                <tr key={l.packId}>
-                  <Td>{l.description}</Td>
-                  <Td figure>{formatQuantity(l.onHand)}</Td>
-                  <Td figure>{formatQuantity(l.reorderPoint)}</Td>
-                  <Td figure>{formatQuantity(l.par)}</Td>
-                  <Td figure className="font-medium">{formatQuantity(l.quantity)}</Td>
-                  <Td figure>{l.unitPrice ? formatMoney(l.unitPrice, s!.currency) : <span className="text-rose">no price</span>}</Td>
-                  <Td figure>{formatMoney(l.lineTotal, s!.currency)}</Td>
-                </tr>
-              ))}
-            </tbody>
-          </Table>
+          <SuggestedLines suggested={s!} />
           <dl className="grid gap-x-8 gap-y-1 text-sm sm:grid-cols-[auto_auto] sm:justify-end">
             <dt className="text-muted">Goods</dt><dd className="text-right tabular-nums">{formatMoney(s!.subtotal, s!.currency)}</dd>
             <dt className="text-muted">Purchase tax</dt><dd className="text-right tabular-nums">{formatMoney(s!.tax, s!.currency)}</dd>
@@ -98,5 +74,42 @@ export function SuggestedOrder({ siteId, supplierId, suppliers, onSupplierChange
         </>
       )}
     </div>
+  );
+}
+
+type Line = Suggested['lines'][number];
+type LineKey = 'description' | 'onHand' | 'reorderPoint' | 'par' | 'quantity' | 'unitPrice' | 'lineTotal';
+
+/** One supplier's low packs, sortable by any column; short enough not to need a filter. */
+function SuggestedLines({ suggested: s }: { suggested: Suggested }) {
+  const value = useCallback((l: Line, key: LineKey) => l[key], []);
+  const { sorted, header } = useSortedRows<Line, LineKey>(s.lines, null, value);
+  return (
+    <Table caption={`Suggested order from ${s.supplier.name}`}>
+      <THead>
+        <tr>
+          {header('description', 'Pack', false)}
+          {header('onHand', 'On hand')}
+          {header('reorderPoint', 'Reorder point')}
+          {header('par', 'Par level')}
+          {header('quantity', 'Order')}
+          {header('unitPrice', 'Pack price')}
+          {header('lineTotal', 'Line total')}
+        </tr>
+      </THead>
+      <tbody>
+        {sorted.map((l) => (
+          <tr key={l.packId}>
+            <Td>{l.description}</Td>
+            <Td figure>{formatQuantity(l.onHand)}</Td>
+            <Td figure>{formatQuantity(l.reorderPoint)}</Td>
+            <Td figure>{formatQuantity(l.par)}</Td>
+            <Td figure className="font-medium">{formatQuantity(l.quantity)}</Td>
+            <Td figure>{l.unitPrice ? formatMoney(l.unitPrice, s.currency) : <span className="text-rose">no price</span>}</Td>
+            <Td figure>{formatMoney(l.lineTotal, s.currency)}</Td>
+          </tr>
+        ))}
+      </tbody>
+    </Table>
   );
 }

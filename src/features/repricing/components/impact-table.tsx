@@ -3,7 +3,7 @@ import { TextLink } from '../../../components/ui/button';
 import { EmptyState } from '../../../components/ui/empty-state';
 import { Field } from '../../../components/ui/field';
 import { Input, Select } from '../../../components/ui/input';
-import { SortHeader, Table, TableFilters, TableSearch, Td, Th, THead, useSortedRows } from '../../../components/ui/table';
+import { Table, TableFilters, TableSearch, Td, Th, THead, useSortedRows } from '../../../components/ui/table';
 import { matchesSearch } from '../../../components/ui/table-rows';
 import { paths } from '../../../lib/paths';
 import type { Choice, Decision, Impact, ImpactRow } from '../api/types';
@@ -44,8 +44,7 @@ export function ImpactTable({ impact, decisions, onDecide, readOnly }: Props) {
   const value = useCallback((r: ImpactRow, key: SortKey) => (key === 'drink' ? `${r.drinkName} ${r.size}` : key === 'target' ? targetRank(r) : r[key]), []);
   // The server's order (most margin lost first) until a header is chosen. The new price and
   // its margin are not sortable: they change as the owner decides, and rows would jump.
-  const { sorted, sort, onSort } = useSortedRows<ImpactRow, SortKey>(shown, null, value);
-  const header = (key: SortKey, label: string, figure = true) => <SortHeader label={label} sortKey={key} sort={sort} onSort={onSort} figure={figure} />;
+  const { sorted, sort, header } = useSortedRows<ImpactRow, SortKey>(shown, null, value);
   return (
     <div className="flex flex-col gap-4">
       <TableFilters shown={shown.length} total={impact.rows.length}>

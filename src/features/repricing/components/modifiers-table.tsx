@@ -1,6 +1,6 @@
 import { useCallback, useMemo, useState } from 'react';
 import { EmptyState } from '../../../components/ui/empty-state';
-import { SortHeader, Table, TableFilters, TableSearch, Td, THead, useSortedRows } from '../../../components/ui/table';
+import { Table, TableFilters, TableSearch, Td, THead, useSortedRows } from '../../../components/ui/table';
 import { matchesSearch } from '../../../components/ui/table-rows';
 import type { Impact, ModifierImpactRow } from '../api/types';
 import { Money, Pct, TargetMark } from './figures';
@@ -16,8 +16,7 @@ export function ModifiersTable({ impact }: { impact: Impact }) {
     (m: ModifierImpactRow, key: SortKey) => (key === 'name' ? `${m.modifierName} ${m.size}` : key === 'target' ? (m.belowTarget ? 0 : m.upcharge !== null ? 1 : 2) : m[key]),
     [],
   );
-  const { sorted, sort, onSort } = useSortedRows<ModifierImpactRow, SortKey>(shown, null, value);
-  const header = (key: SortKey, label: string, figure = true) => <SortHeader label={label} sortKey={key} sort={sort} onSort={onSort} figure={figure} />;
+  const { sorted, header } = useSortedRows<ModifierImpactRow, SortKey>(shown, null, value);
   return (
     <div className="flex flex-col gap-4">
       <TableFilters shown={shown.length} total={impact.modifiers.length}>

@@ -1,9 +1,9 @@
-import { useState } from 'react';
+import { useCallback, useState } from 'react';
 import { Button } from '../../../components/ui/button';
 import { ConfirmDialog } from '../../../components/ui/confirm-dialog';
 import { EmptyState } from '../../../components/ui/empty-state';
 import { StatusMark } from '../../../components/ui/status-mark';
-import { Table, Td, Th, THead } from '../../../components/ui/table';
+import { SortHeader, Table, Td, Th, THead, useSortedRows } from '../../../components/ui/table';
 import { useToast } from '../../../components/ui/toast';
 import { isApiError } from '../../../lib/api-client';
 import { roleLabels } from '../../../lib/api-types';
@@ -11,12 +11,17 @@ import { formatDate } from '../../../lib/format';
 import type { Invitation } from '../api/get-team';
 import { useRevokeInvitation } from '../api/revoke-invitation';
 
+type SortKey = 'email' | 'role' | 'expiresAt';
+
+/** Invitations not yet accepted, soonest to lapse first; a short list, so sortable but not filtered. */
 export function InvitationsList({ invitations }: { invitations: Invitation[] }) {
   const revoke = useRevokeInvitation();
   const { notify } = useToast();
   const [revoking, setRevoking] = useState<Invitation | null>(null);
   // Read the clock once per visit; an invitation that lapses while the page is open shows on the next visit.
   const [now] = useState(() => Date.now());
+  const value = useCallback((inv: Invitation, key: SortKey) => (key === 'role' ? roleLabels[inv.role] : inv[key]), []);
+  const { sorted, sort, onSort } = useSortedRows<Invitation, SortKey>(invitations, { key: 'expiresAt', direction: 'asc' }, value);
 
   if (invitations.length === 0)
     return <EmptyState title="No invitations waiting" next="Invite someone with the form above; their invitation shows here until they join." />;
@@ -26,16 +31,16 @@ export function InvitationsList({ invitations }: { invitations: Invitation[] }) 
       <Table caption="Invitations not yet accepted">
         <THead>
           <tr>
-            <Th>E-mail</Th>
-            <Th>Role</Th>
-            <Th>Link valid until</Th>
+            <SortHeader label="E-mail" sortKey="email" sort={sort} onSort={onSort} />
+            <SortHeader label="Role" sortKey="role" sort={sort} onSort={onSort} />
+            <SortHeader label="Link valid until" sortKey="expiresAt" sort={sort} onSort={onSort} />
             <Th>
               <span className="sr-only">Actions</span>
             </Th>
           </tr>
         </THead>
         <tbody>
-          {invitations.map((inv) => {
+          {sorted.map((inv) => {
             const expired = new Date(inv.expiresAt).getTime() < now;
             return (
               <tr key={inv.id}>
