@@ -3,8 +3,8 @@ import type { Knex } from 'knex';
 import { addMonths, monthBounds, nextDay } from '../src/shared/books';
 import { D, dec, type Dec } from '../src/shared/decimal';
 import { closeMonth } from '../server/books/close.service';
-import { countValueByCategory, purchasesByCategory, salesAggregate } from '../server/books/cogs.repo';
-import { ensureRecipeCosts } from '../server/books/recipe-costs.service';
+import { countValueByCategory, purchasesByCategory } from '../server/books/cogs.repo';
+import { monthSales } from '../server/books/cogs.service';
 import { stockLevels } from '../server/stock/stock.service';
 import { DEMO } from './01_tenancy';
 
@@ -114,9 +114,7 @@ export async function seed(knex: Knex) {
     // What each category costs a month by the recipes: counts hold a week or so of it.
     const theoretical: Map<string, Dec>[] = [];
     for (const month of months) {
-      await ensureRecipeCosts(knex, BIZ, month);
-      const { first, last } = monthBounds(month);
-      const agg = await salesAggregate(knex, BIZ, site.id, month, first, last);
+      const agg = await monthSales(knex, BIZ, site.id, month);
       theoretical.push(new Map(agg.theoretical.map((t) => [t.category, dec(t.cost)])));
     }
 

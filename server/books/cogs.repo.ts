@@ -88,36 +88,47 @@ export interface SalesAggregate {
 }
 
 /**
- * Theoretical cost by category and the month's net sales in ONE statement: the sales are
- * summed per drink size and day, then joined to the recipe cost in force on that day.
+ * Theoretical cost by category and the month's net sales in ONE statement. The month is split
+ * into the price ranges recipe_costs was built over (`rangeStarts`: the 1st, then each day a
+ * pack price takes effect, ascending); the sales are summed per drink size and range, then
+ * joined to the recipe cost of that size in that range. Cups of a size with no recipe cost in
+ * their range (no build, an unpriced ingredient) are counted as uncosted.
  */
-export async function salesAggregate(db: Knex, businessId: string, siteId: string | null, month: string, first: string, last: string): Promise<SalesAggregate> {
+export async function salesAggregate(db: Knex, businessId: string, siteId: string | null, month: string, first: string, last: string, rangeStarts: readonly string[]): Promise<SalesAggregate> {
   const site = siteId ? 'and site_id = :site' : '';
+  // Summed per drink size only (a hash aggregate over the month's lines, as a plain SUM … GROUP
+  // BY would be), with one filtered sum of cups per price range, then unfolded into one row per
+  // size and range. Range i holds the days from start i to the day before start i + 1.
+  const bindings: Record<string, string | null> = { biz: businessId, site: siteId, month: `${month}-01`, first, last };
+  rangeStarts.forEach((d, i) => { bindings[`start${i}`] = d; });
+  const inRange = (i: number) => (i + 1 < rangeStarts.length ? `filter (where sold_on < :start${i + 1}::date${i > 0 ? ` and sold_on >= :start${i}::date` : ''})` : i > 0 ? `filter (where sold_on >= :start${i}::date)` : '');
+  const rangeSums = rangeStarts.map((_, i) => `, sum(quantity) ${inRange(i)} as q${i}`).join('');
+  const unfold = rangeStarts.length ? rangeStarts.map((_, i) => `(:start${i}::date, q${i})`).join(', ') : '(null::date, null::numeric)';
+  // One left join of the size × range sums to the recipe costs: a row per category, and the
+  // cups with no recipe cost under a null category; the month's totals from by_size.
   const { rows } = await db.raw(
-    `with s as (
-       select drink_size_id, sold_on, sum(quantity) as q, sum(net_sales) as n
+    `with by_size as (
+       select drink_size_id, sum(quantity) as cups, sum(net_sales) as net${rangeSums}
          from sales_lines
         where business_id = :biz and sold_on between :first and :last ${site}
-        group by drink_size_id, sold_on
-     ), rc as (
-       select drink_size_id, category, valid_from, valid_to, cost from recipe_costs where business_id = :biz and month = :month
+        group by drink_size_id
+     ), s as (
+       select b.drink_size_id, r.range_start, r.q from by_size b cross join lateral (values ${unfold}) as r(range_start, q) where r.q is not null
      )
-     select rc.category, sum(s.q * rc.cost) as cost, null::numeric as net, null::numeric as cups, null::numeric as uncosted
-       from s join rc on rc.drink_size_id = s.drink_size_id and s.sold_on between rc.valid_from and rc.valid_to
+     select false as total, rc.category, sum(s.q * rc.cost) as cost, sum(s.q) as cups, null::numeric as net
+       from s left join recipe_costs rc on rc.business_id = :biz and rc.month = :month and rc.drink_size_id = s.drink_size_id and rc.valid_from = s.range_start
       group by rc.category
      union all
-     select null, null, coalesce(sum(s.n), 0), coalesce(sum(s.q), 0),
-            coalesce(sum(s.q) filter (where not exists (
-              select 1 from rc where rc.drink_size_id = s.drink_size_id and s.sold_on between rc.valid_from and rc.valid_to)), 0)
-       from s`,
-    { biz: businessId, site: siteId, month: `${month}-01`, first, last },
+     select true, null, null, coalesce(sum(cups), 0), coalesce(sum(net), 0) from by_size`,
+    bindings,
   );
-  const totals = rows.find((r: { category: string | null }) => r.category === null);
+  type Row = { total: boolean; category: string | null; cost: string | null; cups: string; net: string | null };
+  const totals = (rows as Row[]).find((r) => r.total);
   return {
-    theoretical: rows.filter((r: { category: string | null }) => r.category !== null).map((r: { category: string; cost: string }) => ({ category: r.category, cost: r.cost })),
+    theoretical: (rows as Row[]).filter((r) => !r.total && r.category !== null).map((r) => ({ category: r.category as string, cost: r.cost as string })),
     netSales: totals?.net ?? '0',
     cups: totals?.cups ?? '0',
-    uncostedCups: totals?.uncosted ?? '0',
+    uncostedCups: (rows as Row[]).find((r) => !r.total && r.category === null)?.cups ?? '0',
   };
 }
 

@@ -3,6 +3,7 @@ import { D, type Dec } from '../../src/shared/decimal';
 import { monthBounds, nextDay } from '../../src/shared/books';
 import { loadCostModel, type LoadedCostModel } from '../costing/cost-model.service';
 import type { LineRow } from '../costing/cost-model.repo';
+import { cacheFor, costingVersion } from '../costing/versions';
 
 /**
  * Costing over a month: the days on which the prices in force change split the month into a
@@ -33,7 +34,20 @@ export async function priceChangeDays(db: Knex, businessId: string, month: strin
   return [first, ...rows.map((r) => r.effective_from as string)];
 }
 
+/**
+ * The month's price ranges and their cost models, kept while the business's costing version is
+ * unchanged (models are only read once built; see versions.ts).
+ */
 export async function loadMonthCosting(db: Knex, businessId: string, month: string): Promise<MonthCosting> {
+  monthBounds(month);
+  const version = await costingVersion(db, businessId);
+  return cacheFor<MonthCosting>(db, 'month-costing', MONTH_CACHE_LIMIT).get(`${businessId}|${month}`, version, () => buildMonthCosting(db, businessId, month));
+}
+
+/** Months kept per database handle: a month's models for a large menu take a few megabytes. */
+const MONTH_CACHE_LIMIT = 24;
+
+async function buildMonthCosting(db: Knex, businessId: string, month: string): Promise<MonthCosting> {
   const { last } = monthBounds(month);
   const days = await priceChangeDays(db, businessId, month);
   const ranges: PriceRange[] = [];

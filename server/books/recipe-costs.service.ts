@@ -2,6 +2,7 @@ import type { Knex } from 'knex';
 import { monthBounds } from '../../src/shared/books';
 import type { BuildLineRow } from '../costing/cost-model.repo';
 import { groupBy } from '../costing/shared';
+import { costingVersion } from '../costing/versions';
 import { CategorySplitter, loadMonthCosting } from './month-costing';
 
 /**
@@ -9,21 +10,21 @@ import { CategorySplitter, loadMonthCosting } from './month-costing';
  * recipe_costs so the month's theoretical cost is ONE SQL statement over the sales lines
  * (SUM(quantity × cost) joined on the range that holds the day of sale), however many lines.
  *
- * The table is rebuilt for a month only when a fingerprint of every costing input (pack
- * prices, packs, ingredients, preparations and their lines, measures, builds) has changed since
- * it was last built, so an unchanged menu costs one cheap query per report.
+ * The table is rebuilt for a month only when the business's costing version (moved on by
+ * every change to a costing input: pack prices, packs, ingredients, preparations and their
+ * lines, measures, builds) has changed since it was last built, so an unchanged menu costs one
+ * cheap query per report.
  */
 
 // Bump when the way recipe costs are worked out changes: every month is rebuilt on next use.
-const METHOD_VERSION = 'v1';
+const METHOD_VERSION = 'v2';
 
-const INPUT_TABLES = ['pack_prices', 'packs', 'ingredients', 'preparations', 'preparation_lines', 'measures', 'build_lines', 'drink_sizes'] as const;
-
-/** A hash of every costing input of the business (whole rows, in id order). */
+/**
+ * What the month's rows were built from: the method and the business's costing version (which
+ * every change to prices, packs, ingredients, preparations, measures or builds moves on).
+ */
 export async function costingFingerprint(db: Knex, businessId: string): Promise<string> {
-  const parts = INPUT_TABLES.map((t) => `(select coalesce(md5(string_agg(x::text, '|' order by x.id)), '') from ${t} x where x.business_id = :biz)`);
-  const { rows } = await db.raw(`select md5(concat_ws('#', :v::text, ${parts.join(', ')})) as fp`, { biz: businessId, v: METHOD_VERSION });
-  return rows[0].fp as string;
+  return `${METHOD_VERSION}:${await costingVersion(db, businessId)}`;
 }
 
 export interface RecipeCostRow {

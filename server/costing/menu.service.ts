@@ -8,7 +8,8 @@ import { UNITS, isUnitCode } from '../../src/shared/units';
 import { notFound } from '../errors';
 import { loadMenuRows, type BuildLineRow, type DrinkSizeRow, type MenuRows } from './cost-model.repo';
 import { loadCostModel, type CostModelOptions, type LoadedCostModel } from './cost-model.service';
-import { groupBy } from './shared';
+import { groupBy, today } from './shared';
+import { cacheFor, costingVersion } from './versions';
 
 
 /** The preview's figures for one saved cup size: cost, lines, suggested price, figures at both prices. */
@@ -56,10 +57,22 @@ export async function drinkCosting(db: Knex, businessId: string, drinkId: string
  * GET /api/menu/costing: every live drink × size costed from ONE cost model and three menu
  * queries, with the margin at the current price against the category's target.
  */
-export async function menuCosting(db: Knex, businessId: string, options: CostModelOptions = {}) {
-  const [rows, loaded] = await Promise.all([loadMenuRows(db, businessId, undefined, options.asOf), loadCostModel(db, businessId, options)]);
-  return menuCostingFrom(loaded, rows);
+export async function menuCosting(db: Knex, businessId: string, options: CostModelOptions = {}): Promise<MenuCosting> {
+  const compute = async () => {
+    const [rows, loaded] = await Promise.all([loadMenuRows(db, businessId, undefined, options.asOf), loadCostModel(db, businessId, options)]);
+    return menuCostingFrom(loaded, rows);
+  };
+  if (options.priceOverrides) return compute();
+  // An unchanged menu is not costed again: the result is kept per business and date while the
+  // business's costing version stays the same (read first; see versions.ts).
+  const version = await costingVersion(db, businessId);
+  return cacheFor<MenuCosting>(db, 'menu-costing', MENU_CACHE_LIMIT).get(`${businessId}|${options.asOf ?? today()}`, version, compute);
 }
+
+/** Menus kept per database handle (a business and a date each). */
+const MENU_CACHE_LIMIT = 200;
+
+export type MenuCosting = ReturnType<typeof menuCostingFrom>;
 
 /** The pure half of {@link menuCosting}: every drink × size costed from a built model and the menu rows. */
 export function menuCostingFrom(loaded: LoadedCostModel, rows: MenuRows) {

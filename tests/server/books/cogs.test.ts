@@ -3,7 +3,7 @@ import { parse } from 'csv-parse/sync';
 import { D } from '../../../src/shared/decimal';
 import { startTestApp, type TestContext } from '../../helpers/context';
 import { signIn, type Session } from '../../helpers/factories';
-import { makeSupplier } from '../../helpers/costing-factories';
+import { makeDrink, makeSize, makeSupplier } from '../../helpers/costing-factories';
 import { makeBooksCafe, makeCount, makeDelivery, makeSales } from './scenario';
 
 let ctx: TestContext;
@@ -208,5 +208,47 @@ describe('month-end close', () => {
     const live = await keeper.get(`/api/reports/cogs?month=2026-10&siteId=${site}`);
     expect(live.body.closed).toBe(false);
     expect(live.body.rows.find((r: { category: string }) => r.category === 'dairy').closing).toBe('19.20');
+  });
+});
+
+describe('theoretical cost over several price ranges', () => {
+  it('costs each cup at the prices of its day, counts cups with no recipe cost as uncosted, and follows a change made after a report', async () => {
+    const cafe = await makeBooksCafe(ctx.db);
+    const { f, milk, latteSizeId } = cafe;
+    const [site] = f.siteIds;
+    // Milk 1.50 a litre from the 8th, beans 24.00 a kilo from the 16th: three ranges in October.
+    await ctx.db('pack_prices').insert({ business_id: f.businessId, pack_id: milk.packId, price: '1.50', effective_from: '2026-10-08' });
+    // A drink size with no build: its cups cannot be costed.
+    const bare = await makeDrink(ctx.db, f.businessId, { name: 'Hot water', sizes: [{ sizeId: await makeSize(ctx.db, f.businessId), price: '0.50', lines: [] }] });
+    await makeSales(ctx.db, f, site, [
+      { soldOn: '2026-10-03', drinkSizeId: latteSizeId, quantity: '10', netSales: '30.00' },
+      { soldOn: '2026-10-09', drinkSizeId: latteSizeId, quantity: '10', netSales: '30.00' },
+      { soldOn: '2026-10-20', drinkSizeId: latteSizeId, quantity: '10', netSales: '30.00' },
+      { soldOn: '2026-10-04', drinkSizeId: bare.drinkSizeIds[0], quantity: '5', netSales: '2.10' },
+    ]);
+    const keeper = await signIn(ctx.app, f.users.bookkeeper.email);
+    const theoretical = async () => {
+      const res = await keeper.get(`/api/reports/cogs?month=2026-10&siteId=${site}`);
+      expect(res.status, JSON.stringify(res.body)).toBe(200);
+      return res.body as { rows: { category: string; theoretical: string }[]; totals: Record<string, string>; cups: string; uncostedCups: string; notes: string[] };
+    };
+    // Worked out by hand, 10 lattes a range (coffee 18 g, milk 250 ml, a 10 ml pump of the
+    // 2.50 / 1250 ml syrup, one 0.10 cup): coffee 3.60 + 3.60 + 4.32 (18 × 0.024 from the 16th);
+    // dairy 3.00 (250 × 0.0012) + 3.75 + 3.75 (250 × 0.0015 from the 8th); other 3 × 0.16;
+    // syrup-sauce 3 × 0.04; packaging 3 × 1.00.
+    const first = await theoretical();
+    expect(Object.fromEntries(first.rows.map((r) => [r.category, r.theoretical]))).toEqual({ coffee: '11.52', dairy: '10.50', other: '0.48', packaging: '3.00', 'syrup-sauce': '0.12' });
+    expect(first.totals.theoretical).toBe('25.62');
+    expect(first.totals.netSales).toBe('92.10');
+    expect(first.cups).toBe('35');
+    expect(first.uncostedCups).toBe('5');
+    expect(first.notes.join(' ')).toMatch(/5 cups sold could not be costed/);
+
+    // The owner corrects the milk price of the 8th: the next report is costed again.
+    await ctx.db('pack_prices').where({ pack_id: milk.packId, effective_from: '2026-10-08' }).update({ price: '1.60' });
+    const second = await theoretical();
+    // dairy 3.00 + 2 × 10 × 250 × 0.0016 = 3.00 + 8.00
+    expect(second.rows.find((r) => r.category === 'dairy')?.theoretical).toBe('11.00');
+    expect(second.totals.theoretical).toBe('26.12');
   });
 });
