@@ -7,11 +7,15 @@ export interface Timing {
   runs: number;
 }
 
-/** Runs `fn` `warmup` times untimed, then `runs` times, and reports milliseconds. */
-export async function measure(fn: () => unknown, runs = 30, warmup = 3): Promise<Timing> {
+/**
+ * Runs `fn` `warmup` times untimed, then `runs` times, and reports milliseconds. `before`, when
+ * given, runs untimed before each timed run (e.g. a change that makes the next run start cold).
+ */
+export async function measure(fn: () => unknown, runs = 30, warmup = 3, before?: () => unknown): Promise<Timing> {
   for (let i = 0; i < warmup; i++) await fn();
   const times: number[] = [];
   for (let i = 0; i < runs; i++) {
+    if (before) await before();
     const t = performance.now();
     await fn();
     times.push(performance.now() - t);
