@@ -154,6 +154,9 @@ function salesRoutes({ db, config }: AppDeps) {
   r.get('/api/sales/days', allow('sales.import'), async (req, res) => {
     res.json(await sales.salesDays(db, req.user!.businessId, parse(sales.salesDaysQuery, req.query)));
   });
+  r.get('/api/sales/days/:soldOn', allow('sales.import'), async (req, res) => {
+    res.json(await sales.manualDay(db, req.user!.businessId, parse(sales.salesDayQuery, { ...req.query, soldOn: req.params.soldOn })));
+  });
   r.put('/api/sales/days', allow('sales.import'), async (req, res) => {
     res.json(await sales.saveManualDay(db, req.user!.businessId, parse(sales.manualDaySchema, req.body)));
   });

@@ -1,13 +1,13 @@
 import { createHash } from 'node:crypto';
 import type { Knex } from 'knex';
 import { z } from 'zod';
-import { monthBounds, monthString } from '../../src/shared/books';
+import { monthBounds, monthOf, monthString } from '../../src/shared/books';
 import { D, dec } from '../../src/shared/decimal';
 import { writeMoney } from '../../src/shared/money';
 import { rules } from '../../src/shared/checks';
 import { decimalString, isoDate, qty } from '../costing/shared';
 import { AppError, badRequest, conflict, notFound } from '../errors';
-import { assertMonthOpen, assertRangeOpen } from './periods.service';
+import { assertMonthOpen, assertRangeOpen, isMonthClosed } from './periods.service';
 import { assertSite } from './sites';
 import { columnMappingSchema, guessMapping, readHeader, readRows, readTextFile, similarity, type ColumnMapping, type TillRow } from './till-csv';
 
@@ -22,6 +22,7 @@ export const manualDaySchema = z.object({
   lines: z.array(z.object({ drinkSizeId: z.uuid('Choose the drink and size.'), quantity: decimalString(rules.nonNegative), netSales: decimalString(rules.nonNegative), tax: decimalString(rules.nonNegative).nullish() })).max(500),
 });
 export const salesDaysQuery = z.object({ siteId: z.uuid(), month: monthString });
+export const salesDayQuery = z.object({ siteId: z.uuid('Choose a site.'), soldOn: isoDate });
 
 const INSERT_BATCH = 1000;
 /** Errors listed in a preview: enough to fix a file, never a megabyte of them. */
@@ -296,7 +297,45 @@ export async function listImports(db: Knex, businessId: string, siteId?: string)
   return { imports: rows.map(importOut) };
 }
 
-/** A day's sales typed in by hand (when there is no till file): replaces that day's hand-entered lines. */
+/**
+ * One day at a site as the hand-entry form loads it: the lines typed in by hand (in the order
+ * they were saved), how many lines came from till files that day, and whether its month is
+ * closed (then saving is refused).
+ */
+export async function manualDay(db: Knex | Knex.Transaction, businessId: string, q: z.infer<typeof salesDayQuery>) {
+  await assertSite(db, businessId, q.siteId);
+  // One after another: inside a save this runs on the transaction's one connection.
+  const currency = (await db('businesses').where({ id: businessId }).first('currency')).currency as string;
+  const closed = await isMonthClosed(db, businessId, monthOf(q.soldOn));
+  const lines = await db('sales_lines as sl')
+    .join('drink_sizes as ds', 'ds.id', 'sl.drink_size_id')
+    .join('drinks as d', 'd.id', 'ds.drink_id')
+    .join('cup_sizes as cs', 'cs.id', 'ds.size_id')
+    .where({ 'sl.business_id': businessId, 'sl.site_id': q.siteId, 'sl.sold_on': q.soldOn })
+    .whereNull('sl.import_id')
+    .orderBy('sl.id')
+    .select('sl.drink_size_id', 'sl.quantity', 'sl.net_sales', 'sl.tax', 'd.name as drink', 'cs.name as size');
+  const imported = await db('sales_lines').where({ business_id: businessId, site_id: q.siteId, sold_on: q.soldOn }).whereNotNull('import_id').count<{ n: string }[]>('* as n');
+  return {
+    siteId: q.siteId,
+    soldOn: q.soldOn,
+    closed,
+    currency,
+    lines: lines.map((l) => ({
+      drinkSizeId: l.drink_size_id as string,
+      label: `${l.drink} (${l.size})`,
+      quantity: qty(l.quantity) as string,
+      netSales: writeMoney(l.net_sales, currency),
+      tax: l.tax === null ? null : writeMoney(l.tax, currency),
+    })),
+    importedLines: Number(imported[0].n),
+  };
+}
+
+/**
+ * A day's sales typed in by hand (when there is no till file): replaces that day's hand-entered
+ * lines, and answers with the day as `manualDay` reads it and how many lines were replaced.
+ */
 export async function saveManualDay(db: Knex, businessId: string, input: z.infer<typeof manualDaySchema>) {
   return db.transaction(async (trx) => {
     await assertSite(trx, businessId, input.siteId);
@@ -304,11 +343,11 @@ export async function saveManualDay(db: Knex, businessId: string, input: z.infer
     const ids = [...new Set(input.lines.map((l) => l.drinkSizeId))];
     const valid = await trx('drink_sizes').where({ business_id: businessId }).whereIn('id', ids).count<{ n: string }[]>('* as n');
     if (Number(valid[0].n) !== ids.length) throw notFound('That drink size');
-    await trx('sales_lines').where({ business_id: businessId, site_id: input.siteId, sold_on: input.soldOn }).whereNull('import_id').del();
+    const replaced = await trx('sales_lines').where({ business_id: businessId, site_id: input.siteId, sold_on: input.soldOn }).whereNull('import_id').del();
     if (input.lines.length) {
       await trx('sales_lines').insert(input.lines.map((l) => ({ business_id: businessId, site_id: input.siteId, sold_on: input.soldOn, drink_size_id: l.drinkSizeId, quantity: l.quantity, net_sales: l.netSales, tax: l.tax ?? null })));
     }
-    return { soldOn: input.soldOn, lines: input.lines.length };
+    return { ...(await manualDay(trx, businessId, { siteId: input.siteId, soldOn: input.soldOn })), replaced };
   });
 }
 

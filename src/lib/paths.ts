@@ -85,6 +85,7 @@ export const paths = {
     importPreview: (id: string) => `/api/sales-imports/${encodeURIComponent(id)}/preview`,
     importAccept: (id: string) => `/api/sales-imports/${encodeURIComponent(id)}/accept`,
     salesDays: (query: { siteId?: string; month?: string } = {}) => withQuery('/api/sales/days', query),
+    salesDay: (siteId: string, soldOn: string) => withQuery(`/api/sales/days/${encodeURIComponent(soldOn)}`, { siteId }),
     me: () => '/api/auth/me',
     login: () => '/api/auth/login',
     logout: () => '/api/auth/logout',

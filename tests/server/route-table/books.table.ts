@@ -101,5 +101,6 @@ export const routes: RouteCase[] = [
   },
   { method: 'delete', path: '/api/sales-imports/:id', url: async (f) => `/api/sales-imports/${await pendingImport(f)}`, expect: importing(204) },
   { method: 'get', path: '/api/sales/days', url: (f) => `/api/sales/days?month=2026-11&siteId=${f.biz.siteIds[0]}`, expect: importing(200) },
+  { method: 'get', path: '/api/sales/days/:soldOn', url: (f) => `/api/sales/days/2026-11-03?siteId=${f.biz.siteIds[0]}`, expect: importing(200) },
   { method: 'put', path: '/api/sales/days', body: (f) => ({ siteId: f.biz.siteIds[0], soldOn: '2026-11-03', lines: [] }), expect: importing(200) },
 ];
