@@ -86,7 +86,7 @@ export function ImpactTable({ impact, decisions, onDecide, readOnly }: Props) {
               return (
                 <Fragment key={r.drinkSizeId}>
                   <tr data-row={label} className={r.belowTarget ? 'bg-rose/5' : undefined}>
-                    <Td>
+                    <Td className="min-w-40">
                       <div className="font-medium">
                         <TextLink to={paths.priceHistory.href(r.drinkId)} title="Price history of this drink">
                           {r.drinkName}

@@ -41,7 +41,7 @@ export function ModifiersTable({ impact }: { impact: Impact }) {
           <tbody>
             {sorted.map((m) => (
               <tr key={`${m.modifierId}|${m.sizeId}`}>
-                <Td>
+                <Td className="min-w-40">
                   <div className="font-medium">{m.modifierName} <span className="font-normal">· {m.size}</span></div>
                   <div className="text-xs text-muted">{m.ingredients.join(', ')}</div>
                 </Td>
