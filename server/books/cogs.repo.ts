@@ -1,4 +1,5 @@
 import type { Knex } from 'knex';
+import { INGREDIENT_CATEGORIES } from '../../src/shared/categories';
 
 // Plain rows for the month's cost of goods. Each figure is one aggregate statement in
 // PostgreSQL; nothing here loops over sales lines in JavaScript.
@@ -14,6 +15,11 @@ export interface ChosenCount {
  * on or before `onOrBefore` (and, with `exactly`, dated that very day); the last finished wins a tie.
  */
 export async function chooseCounts(db: Knex, businessId: string, siteId: string | null, onOrBefore: string, exactly = false): Promise<ChosenCount[]> {
+  return chosenCountsQuery(db, businessId, siteId, onOrBefore, exactly);
+}
+
+/** The query of {@link chooseCounts}, to be run or used as a subquery. */
+export function chosenCountsQuery(db: Knex, businessId: string, siteId: string | null, onOrBefore: string, exactly = false) {
   const q = db('stock_counts')
     .distinctOn('site_id')
     .where({ business_id: businessId, status: 'finished' })
@@ -31,9 +37,14 @@ export interface CategoryValue {
   unpriced: string;
 }
 
-/** Stock value of counts by ingredient category: packs × the pack price in force on the count date (or the price frozen at close). */
-export async function countValueByCategory(db: Knex, countIds: string[]): Promise<CategoryValue[]> {
-  if (!countIds.length) return [];
+/**
+ * Stock value of counts by ingredient category: packs × the pack price in force on the count
+ * date (or the price frozen at close). The counts are given by id, or as the query that chooses
+ * them ({@link chosenCountsQuery}), so choosing and valuing them is one statement.
+ */
+export async function countValueByCategory(db: Knex, counts: string[] | Knex.QueryBuilder): Promise<CategoryValue[]> {
+  if (Array.isArray(counts) && !counts.length) return [];
+  const which = Array.isArray(counts) ? 'l.count_id = any(?::uuid[])' : 'l.count_id in (select chosen.id from (?) as chosen)';
   const { rows } = await db.raw(
     `select i.category, sum(l.packs * coalesce(l.frozen_price, pr.price, 0)) as value,
             count(*) filter (where l.frozen_price is null and pr.price is null and l.packs > 0) as unpriced
@@ -45,9 +56,9 @@ export async function countValueByCategory(db: Knex, countIds: string[]): Promis
          select pp.price from pack_prices pp
           where pp.pack_id = l.pack_id and pp.effective_from <= c.count_date
           order by pp.effective_from desc, pp.created_at desc limit 1) pr on true
-      where l.count_id = any(?::uuid[])
+      where ${which}
       group by i.category`,
-    [countIds],
+    [counts],
   );
   return rows;
 }
@@ -104,8 +115,9 @@ export async function salesAggregate(db: Knex, businessId: string, siteId: strin
   const inRange = (i: number) => (i + 1 < rangeStarts.length ? `filter (where sold_on < :start${i + 1}::date${i > 0 ? ` and sold_on >= :start${i}::date` : ''})` : i > 0 ? `filter (where sold_on >= :start${i}::date)` : '');
   const rangeSums = rangeStarts.map((_, i) => `, sum(quantity) ${inRange(i)} as q${i}`).join('');
   const unfold = rangeStarts.length ? rangeStarts.map((_, i) => `(:start${i}::date, q${i})`).join(', ') : '(null::date, null::numeric)';
-  // One left join of the size × range sums to the recipe costs: a row per category, and the
-  // cups with no recipe cost under a null category; the month's totals from by_size.
+  // One left join of the size × range sums to the recipe costs (one row per size and range),
+  // summing each category's element; cups with no recipe cost in their range are uncosted.
+  const categorySums = INGREDIENT_CATEGORIES.map((_, i) => `sum(s.q * rc.costs[${i + 1}]) as c${i}`).join(', ');
   const { rows } = await db.raw(
     `with by_size as (
        select drink_size_id, sum(quantity) as cups, sum(net_sales) as net${rangeSums}
@@ -115,20 +127,18 @@ export async function salesAggregate(db: Knex, businessId: string, siteId: strin
      ), s as (
        select b.drink_size_id, r.range_start, r.q from by_size b cross join lateral (values ${unfold}) as r(range_start, q) where r.q is not null
      )
-     select false as total, rc.category, sum(s.q * rc.cost) as cost, sum(s.q) as cups, null::numeric as net
-       from s left join recipe_costs rc on rc.business_id = :biz and rc.month = :month and rc.drink_size_id = s.drink_size_id and rc.valid_from = s.range_start
-      group by rc.category
-     union all
-     select true, null, null, coalesce(sum(cups), 0), coalesce(sum(net), 0) from by_size`,
+     select ${categorySums}, coalesce(sum(s.q) filter (where rc.drink_size_id is null), 0) as uncosted,
+            (select coalesce(sum(net), 0) from by_size) as net, (select coalesce(sum(cups), 0) from by_size) as cups
+       from s left join recipe_costs rc on rc.business_id = :biz and rc.month = :month and rc.drink_size_id = s.drink_size_id and rc.valid_from = s.range_start`,
     bindings,
   );
-  type Row = { total: boolean; category: string | null; cost: string | null; cups: string; net: string | null };
-  const totals = (rows as Row[]).find((r) => r.total);
+  const r = rows[0] as Record<string, string | null>;
   return {
-    theoretical: (rows as Row[]).filter((r) => !r.total && r.category !== null).map((r) => ({ category: r.category as string, cost: r.cost as string })),
-    netSales: totals?.net ?? '0',
-    cups: totals?.cups ?? '0',
-    uncostedCups: (rows as Row[]).find((r) => !r.total && r.category === null)?.cups ?? '0',
+    // A category no costed build uses has no sum (null) and no row.
+    theoretical: INGREDIENT_CATEGORIES.flatMap((category, i) => (r[`c${i}`] === null ? [] : [{ category, cost: r[`c${i}`] as string }])),
+    netSales: r.net ?? '0',
+    cups: r.cups ?? '0',
+    uncostedCups: r.uncosted ?? '0',
   };
 }
 

@@ -2,11 +2,11 @@ import type { Knex } from 'knex';
 import { assembleCogs, monthBounds, type CategoryFigures, type CogsRowOut, type CogsTotalsOut } from '../../src/shared/books';
 import { D, dec, type Dec } from '../../src/shared/decimal';
 import { writeQuantity } from '../../src/shared/money';
-import { chooseCounts, countValueByCategory, purchasesByCategory, salesAggregate, wasteInRange, type ChosenCount, type SalesAggregate } from './cogs.repo';
+import { chooseCounts, chosenCountsQuery, countValueByCategory, purchasesByCategory, salesAggregate, wasteInRange, type ChosenCount, type SalesAggregate } from './cogs.repo';
 import { loadMonthCosting } from './month-costing';
-import { ensureRecipeCosts } from './recipe-costs.service';
+import { ensureRecipeCosts, type KnownCostingState } from './recipe-costs.service';
 import { valueWaste } from './waste.service';
-import { assertSite } from './sites';
+import { notFound } from '../errors';
 
 export interface CountRef {
   siteId: string;
@@ -32,32 +32,61 @@ export interface CogsReport {
 
 const refs = (counts: ChosenCount[]): CountRef[] => counts.map((c) => ({ siteId: c.site_id, countId: c.id, countDate: c.count_date }));
 
+/** What a report needs to know before its figures, read in ONE statement. */
+export interface ReportState extends KnownCostingState {
+  siteFound: boolean;
+  currency: string;
+  periodId: string | null;
+  closed: boolean;
+}
+
+export async function reportState(db: Knex, businessId: string, month: string, siteId: string | null): Promise<ReportState> {
+  const { rows } = await db.raw(
+    `select b.currency,
+            (select version from costing_versions where business_id = b.id) as version,
+            (select fingerprint from recipe_cost_months where business_id = b.id and month = :month) as fingerprint,
+            p.id as period_id, p.status as period_status,
+            (:site::uuid is null or exists (select 1 from sites s where s.id = :site::uuid and s.business_id = b.id)) as site_found
+       from businesses b left join periods p on p.business_id = b.id and p.month = :month
+      where b.id = :biz`,
+    { biz: businessId, month: `${month}-01`, site: siteId },
+  );
+  const r = rows[0];
+  if (!r) throw new Error(`Business ${businessId} not found`);
+  return { currency: r.currency, version: r.version === null ? '0' : String(r.version), fingerprint: r.fingerprint, periodId: r.period_id, closed: r.period_status === 'closed', siteFound: r.site_found };
+}
+
 /**
  * The month's till sales with their theoretical cost by category, at one site or all: makes
  * the month's recipe costs current, then ONE aggregate statement over the sales lines.
  */
-export async function monthSales(db: Knex, businessId: string, siteId: string | null, month: string): Promise<SalesAggregate> {
+export async function monthSales(db: Knex, businessId: string, siteId: string | null, month: string, known?: KnownCostingState): Promise<SalesAggregate> {
   const { first, last } = monthBounds(month);
-  const [costing] = await Promise.all([loadMonthCosting(db, businessId, month), ensureRecipeCosts(db, businessId, month)]);
+  const state = known ?? (await reportState(db, businessId, month, siteId));
+  const [costing] = await Promise.all([loadMonthCosting(db, businessId, month, state.version), ensureRecipeCosts(db, businessId, month, state)]);
   return salesAggregate(db, businessId, siteId, month, first, last, costing.ranges.map((r) => r.from));
 }
 
 /** The month's cost of goods worked out now from the stored rows (never from a snapshot). */
-export async function computeCogs(db: Knex, businessId: string, month: string, siteId: string | null): Promise<Omit<CogsReport, 'closed'>> {
+export async function computeCogs(db: Knex, businessId: string, month: string, siteId: string | null, known?: ReportState): Promise<Omit<CogsReport, 'closed'>> {
   const { first, last, previousLast } = monthBounds(month);
-  // Every figure in one round of parallel statements: each count is valued as soon as it is
-  // chosen, and waste as soon as it is read, while the sales aggregate runs.
-  const valued = (counts: Promise<ChosenCount[]>) => counts.then(async (c) => ({ counts: c, values: await countValueByCategory(db, c.map((x) => x.id)) }));
-  const [business, sites, opening, closing, purchases, sales, waste] = await Promise.all([
-    db('businesses').where({ id: businessId }).first('currency'),
+  const state = known ?? (await reportState(db, businessId, month, siteId));
+  // Every figure in one round of parallel statements: counts chosen and valued in one
+  // statement each, waste valued in memory by the month's cost models, while the sales
+  // aggregate runs.
+  const countsOn = (day: string, exactly: boolean) => Promise.all([
+    chooseCounts(db, businessId, siteId, day, exactly),
+    countValueByCategory(db, chosenCountsQuery(db, businessId, siteId, day, exactly)),
+  ]).then(([counts, values]) => ({ counts, values }));
+  const [sites, opening, closing, purchases, sales, waste] = await Promise.all([
     db('sites').where({ business_id: businessId }).modify((q) => (siteId ? q.where({ id: siteId }) : q)).orderBy('created_at').select('id', 'name') as Promise<{ id: string; name: string }[]>,
-    valued(chooseCounts(db, businessId, siteId, previousLast)),
-    valued(chooseCounts(db, businessId, siteId, last, true)),
+    countsOn(previousLast, false),
+    countsOn(last, true),
     purchasesByCategory(db, businessId, siteId, first, last),
-    monthSales(db, businessId, siteId, month),
-    wasteInRange(db, businessId, siteId, first, last).then(async (rows) => ({ rows, values: await valueWaste(db, businessId, month, rows) })),
+    monthSales(db, businessId, siteId, month, state),
+    wasteInRange(db, businessId, siteId, first, last).then(async (rows) => ({ rows, values: await valueWaste(db, businessId, month, rows, state.version) })),
   ]);
-  const currency = business.currency as string;
+  const { currency } = state;
   const [openingValues, closingValues, wasteValues] = [opening.values, closing.values, waste.values];
 
   const figures = new Map<string, { opening: Dec; purchases: Dec; closing: Dec; theoretical: Dec; waste: Dec }>();
@@ -107,13 +136,12 @@ export async function computeCogs(db: Knex, businessId: string, month: string, s
  * run); otherwise worked out now.
  */
 export async function cogsReport(db: Knex, businessId: string, month: string, siteId: string | null): Promise<CogsReport> {
-  const [, period] = await Promise.all([
-    siteId ? assertSite(db, businessId, siteId) : null,
-    db('periods').where({ business_id: businessId, month: `${month}-01` }).first('id', 'status'),
-  ]);
-  if (period?.status === 'closed') {
-    const snap = await db('period_reports').where({ period_id: period.id }).modify((q) => (siteId ? q.where({ site_id: siteId }) : q.whereNull('site_id'))).first('report');
+  monthBounds(month);
+  const state = await reportState(db, businessId, month, siteId);
+  if (!state.siteFound) throw notFound('That site');
+  if (state.closed) {
+    const snap = await db('period_reports').where({ period_id: state.periodId }).modify((q) => (siteId ? q.where({ site_id: siteId }) : q.whereNull('site_id'))).first('report');
     if (snap) return { ...(snap.report as Omit<CogsReport, 'closed'>), closed: true };
   }
-  return { ...(await computeCogs(db, businessId, month, siteId)), closed: period?.status === 'closed' };
+  return { ...(await computeCogs(db, businessId, month, siteId, state)), closed: state.closed };
 }

@@ -38,9 +38,9 @@ export async function priceChangeDays(db: Knex, businessId: string, month: strin
  * The month's price ranges and their cost models, kept while the business's costing version is
  * unchanged (models are only read once built; see versions.ts).
  */
-export async function loadMonthCosting(db: Knex, businessId: string, month: string): Promise<MonthCosting> {
+export async function loadMonthCosting(db: Knex, businessId: string, month: string, knownVersion?: string): Promise<MonthCosting> {
   monthBounds(month);
-  const version = await costingVersion(db, businessId);
+  const version = knownVersion ?? (await costingVersion(db, businessId));
   return cacheFor<MonthCosting>(db, 'month-costing', MONTH_CACHE_LIMIT).get(`${businessId}|${month}`, version, () => buildMonthCosting(db, businessId, month));
 }
 

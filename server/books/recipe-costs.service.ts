@@ -1,14 +1,15 @@
 import type { Knex } from 'knex';
 import { monthBounds } from '../../src/shared/books';
+import { INGREDIENT_CATEGORIES } from '../../src/shared/categories';
 import type { BuildLineRow } from '../costing/cost-model.repo';
 import { groupBy } from '../costing/shared';
 import { costingVersion } from '../costing/versions';
 import { CategorySplitter, loadMonthCosting } from './month-costing';
 
 /**
- * Recipe cost per drink size and ingredient category over the price ranges of a month, kept in
- * recipe_costs so the month's theoretical cost is ONE SQL statement over the sales lines
- * (SUM(quantity × cost) joined on the range that holds the day of sale), however many lines.
+ * Recipe cost per drink size over the price ranges of a month, by ingredient category (an array
+ * in the order of INGREDIENT_CATEGORIES), kept in recipe_costs so the month's theoretical cost is ONE SQL statement over the sales lines
+ * (each category's SUM(cups × cost) joined on the range that holds the day of sale), however many lines.
  *
  * The table is rebuilt for a month only when the business's costing version (moved on by
  * every change to a costing input: pack prices, packs, ingredients, preparations and their
@@ -17,30 +18,41 @@ import { CategorySplitter, loadMonthCosting } from './month-costing';
  */
 
 // Bump when the way recipe costs are worked out changes: every month is rebuilt on next use.
-const METHOD_VERSION = 'v2';
+const METHOD_VERSION = `v3:${INGREDIENT_CATEGORIES.join(',')}`;
 
 /**
  * What the month's rows were built from: the method and the business's costing version (which
  * every change to prices, packs, ingredients, preparations, measures or builds moves on).
  */
 export async function costingFingerprint(db: Knex, businessId: string): Promise<string> {
-  return `${METHOD_VERSION}:${await costingVersion(db, businessId)}`;
+  return fingerprintAt(await costingVersion(db, businessId));
+}
+
+/** The fingerprint of rows built at a costing version. */
+export const fingerprintAt = (version: string) => `${METHOD_VERSION}:${version}`;
+
+/** What a caller already read (in one statement with other things): the version and the month's stored fingerprint. */
+export interface KnownCostingState {
+  version: string;
+  fingerprint: string | null;
 }
 
 export interface RecipeCostRow {
   business_id: string;
   month: string;
   drink_size_id: string;
-  category: string;
   valid_from: string;
   valid_to: string;
-  cost: string;
+  /** Cost of one cup per ingredient category, in the order of INGREDIENT_CATEGORIES; null where the build uses none of it. */
+  costs: (string | null)[];
 }
 
+const CATEGORY_INDEX = new Map<string, number>(INGREDIENT_CATEGORIES.map((c, i) => [c, i]));
+
 /** Works out the rows for a month with the costing engine (a drink size that cannot be costed gets none). */
-export async function computeRecipeCosts(db: Knex, businessId: string, month: string): Promise<RecipeCostRow[]> {
+export async function computeRecipeCosts(db: Knex, businessId: string, month: string, knownVersion?: string): Promise<RecipeCostRow[]> {
   const [costing, lines] = await Promise.all([
-    loadMonthCosting(db, businessId, month),
+    loadMonthCosting(db, businessId, month, knownVersion),
     db('build_lines')
       .where({ business_id: businessId })
       .orderBy([{ column: 'drink_size_id' }, { column: 'position' }])
@@ -53,9 +65,13 @@ export async function computeRecipeCosts(db: Knex, businessId: string, month: st
     for (const [sizeId, sizeLines] of bySize) {
       const r = splitter.split(sizeLines);
       if (!r.ok) continue;
+      const costs: (string | null)[] = INGREDIENT_CATEGORIES.map(() => null);
       for (const [category, cost] of r.byCategory) {
-        out.push({ business_id: businessId, month: `${month}-01`, drink_size_id: sizeId, category, valid_from: range.from, valid_to: range.to, cost: cost.toDecimalPlaces(12).toFixed() });
+        const i = CATEGORY_INDEX.get(category);
+        if (i === undefined) throw new Error(`Unknown ingredient category "${category}"`);
+        costs[i] = cost.toDecimalPlaces(12).toFixed();
       }
+      out.push({ business_id: businessId, month: `${month}-01`, drink_size_id: sizeId, valid_from: range.from, valid_to: range.to, costs });
     }
   }
   return out;
@@ -65,12 +81,12 @@ export async function computeRecipeCosts(db: Knex, businessId: string, month: st
  * Makes recipe_costs current for an open month (a no-op when nothing has changed). A closed
  * month is never touched: its report comes from the snapshot taken at close.
  */
-export async function ensureRecipeCosts(db: Knex, businessId: string, month: string): Promise<void> {
+export async function ensureRecipeCosts(db: Knex, businessId: string, month: string, known?: KnownCostingState): Promise<void> {
   monthBounds(month);
-  const fp = await costingFingerprint(db, businessId);
-  const current = await db('recipe_cost_months').where({ business_id: businessId, month: `${month}-01` }).first('fingerprint');
-  if (current?.fingerprint === fp) return;
-  const rows = await computeRecipeCosts(db, businessId, month);
+  const fp = known ? fingerprintAt(known.version) : await costingFingerprint(db, businessId);
+  const current = known ? known.fingerprint : (await db('recipe_cost_months').where({ business_id: businessId, month: `${month}-01` }).first('fingerprint'))?.fingerprint;
+  if (current === fp) return;
+  const rows = await computeRecipeCosts(db, businessId, month, known?.version);
   await db.transaction(async (trx) => {
     // One rebuild at a time per business and month; a second caller finds it done.
     await trx.raw('select pg_advisory_xact_lock(hashtext(?))', [`recipe_costs:${businessId}:${month}`]);

@@ -36,12 +36,12 @@ export interface WasteValue {
  * quantity and unit, a drink by its build × the cups wasted, each split by ingredient category.
  * Entries are few, so this runs in JavaScript with one cost model per price range of the month.
  */
-export async function valueWaste(db: Knex, businessId: string, month: string, rows: readonly WasteRow[]): Promise<Map<string, WasteValue>> {
+export async function valueWaste(db: Knex, businessId: string, month: string, rows: readonly WasteRow[], knownVersion?: string): Promise<Map<string, WasteValue>> {
   const out = new Map<string, WasteValue>();
   if (!rows.length) return out;
   const sizeIds = [...new Set(rows.map((r) => r.drink_size_id).filter((x): x is string => Boolean(x)))];
   const [costing, builds] = await Promise.all([
-    loadMonthCosting(db, businessId, month),
+    loadMonthCosting(db, businessId, month, knownVersion),
     sizeIds.length
       ? (db('build_lines').whereIn('drink_size_id', sizeIds).orderBy('position').select('id', 'drink_size_id', 'position', 'ingredient_id', 'preparation_id', 'quantity', 'unit', 'measure_id') as Promise<BuildLineRow[]>)
       : Promise.resolve([] as BuildLineRow[]),

@@ -1,4 +1,5 @@
 import type { Knex } from 'knex';
+import { INGREDIENT_CATEGORIES } from '../../src/shared/categories';
 import { z } from 'zod';
 import { ALLERGEN_CAUTION, ALLERGEN_CODES } from '../../src/shared/allergens';
 import { rules } from '../../src/shared/checks';
@@ -10,7 +11,7 @@ import { invalidInput, notFound } from '../errors';
 import { loadCostModel, type CostedIngredient, type LoadedCostModel } from './cost-model.service';
 import { decimalString, guardWrite, isoDate, money, name, optionalText, qty, today } from './shared';
 
-export const CATEGORIES = ['coffee', 'dairy', 'plant-milk', 'syrup-sauce', 'powder', 'tea', 'extras', 'packaging', 'other'] as const;
+export const CATEGORIES = INGREDIENT_CATEGORIES;
 const unitCode = z.enum(UNIT_CODES, { error: (issue) => `Unknown unit "${String(issue.input)}".` });
 
 export const measureInSchema = z.object({ name: name('measure'), quantity: decimalString(rules.positive), unit: unitCode });

@@ -1,12 +1,12 @@
 // Shapes of the costing API's bodies as the client reads them (see the costing API contract).
 import type { AllergenCode } from '../../../shared/allergens';
+import { INGREDIENT_CATEGORIES, type IngredientCategory } from '../../../shared/categories';
 import type { PriceFigures, PricingPolicy } from '../../../shared/pricing';
 import type { BaseUnit, UnitCode } from '../../../shared/units';
 
 export type { AllergenCode, BaseUnit, PriceFigures, PricingPolicy, UnitCode };
 
-export const INGREDIENT_CATEGORIES = ['coffee', 'dairy', 'plant-milk', 'syrup-sauce', 'powder', 'tea', 'extras', 'packaging', 'other'] as const;
-export type IngredientCategory = (typeof INGREDIENT_CATEGORIES)[number];
+export { INGREDIENT_CATEGORIES, type IngredientCategory };
 export const categoryLabels: Record<IngredientCategory, string> = {
   coffee: 'Coffee',
   dairy: 'Dairy',
