@@ -124,7 +124,7 @@ export function StockTable({ siteId, items, canEdit, areas, onLevelSaved, onArea
     return items.filter((i) => i.description.toLowerCase().includes(q) && (!supplierId || i.supplier?.id === supplierId));
   }, [items, search, supplierId]);
   const value = useCallback(
-    (i: StockItem, key: SortKey) => (key === 'description' ? i.description : key === 'supplier' ? (i.supplier?.name ?? '') : key === 'area' ? (i.storageArea?.name ?? '') : Number(i[key])),
+    (i: StockItem, key: SortKey) => (key === 'description' ? i.description : key === 'supplier' ? (i.supplier?.name ?? '') : key === 'area' ? (i.storageArea?.name ?? '') : i[key]),
     [],
   );
   const { sorted, sort, onSort } = useSortedRows<StockItem, SortKey>(shown, { key: 'description', direction: 'asc' }, value);
