@@ -4,7 +4,6 @@ import path from 'node:path';
 import { fileURLToPath } from 'node:url';
 import express, { type Router } from 'express';
 import session from 'express-session';
-import connectPgSimple from 'connect-pg-simple';
 import helmet from 'helmet';
 import pg from 'pg';
 import type { Knex } from 'knex';
@@ -13,6 +12,7 @@ import { publicConfig } from './config';
 import type { Logger } from './logger';
 import type { Mailer } from './mail/mailer';
 import { configurePassport } from './auth/passport';
+import { createSessionStore } from './auth/session-store';
 import { authRoutes, isCsrfExempt } from './auth/auth.routes';
 import { csrfProtection } from './http/middleware';
 import { errorHandler } from './http/error-handler';
@@ -71,9 +71,8 @@ export function createApp(deps: AppDeps) {
 
   app.use(express.json({ limit: '1mb' }));
 
-  const PgStore = connectPgSimple(session);
   const sessionPool = new pg.Pool({ connectionString: config.DATABASE_URL, max: 5 });
-  const sessionStore = new PgStore({ pool: sessionPool, tableName: 'session', createTableIfMissing: false, pruneSessionInterval: 60 * 15 });
+  const sessionStore = createSessionStore(sessionPool);
   app.locals.shutdown = async () => {
     sessionStore.close();
     await sessionPool.end();

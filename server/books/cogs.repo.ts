@@ -114,13 +114,15 @@ export async function salesAggregate(db: Knex, businessId: string, siteId: strin
   rangeStarts.forEach((d, i) => { bindings[`start${i}`] = d; });
   const inRange = (i: number) => (i + 1 < rangeStarts.length ? `filter (where sold_on < :start${i + 1}::date${i > 0 ? ` and sold_on >= :start${i}::date` : ''})` : i > 0 ? `filter (where sold_on >= :start${i}::date)` : '');
   const rangeSums = rangeStarts.map((_, i) => `, sum(quantity) ${inRange(i)} as q${i}`).join('');
-  const unfold = rangeStarts.length ? rangeStarts.map((_, i) => `(:start${i}::date, q${i})`).join(', ') : '(null::date, null::numeric)';
-  // One left join of the size × range sums to the recipe costs (one row per size and range),
-  // summing each category's element; cups with no recipe cost in their range are uncosted.
+  if (!rangeStarts.length || rangeStarts[0] !== first) throw new RangeError('The price ranges of a month start on its first day.');
+  const unfold = rangeStarts.map((_, i) => `(:start${i}::date, q${i})`).join(', ');
+  // One left join of the size × range sums to the recipe costs (at most one row per size and
+  // range: the primary key), summing each category's element; cups are the sum over every size
+  // and range, and those with no recipe cost in their range are uncosted.
   const categorySums = INGREDIENT_CATEGORIES.map((_, i) => `sum(s.q * rc.costs[${i + 1}]) as c${i}`).join(', ');
   const { rows } = await db.raw(
     `with by_size as (
-       select drink_size_id, sum(quantity) as cups, sum(net_sales) as net${rangeSums}
+       select drink_size_id, sum(net_sales) as net${rangeSums}
          from sales_lines
         where business_id = :biz and sold_on between :first and :last ${site}
         group by drink_size_id
@@ -128,7 +130,7 @@ export async function salesAggregate(db: Knex, businessId: string, siteId: strin
        select b.drink_size_id, r.range_start, r.q from by_size b cross join lateral (values ${unfold}) as r(range_start, q) where r.q is not null
      )
      select ${categorySums}, coalesce(sum(s.q) filter (where rc.drink_size_id is null), 0) as uncosted,
-            (select coalesce(sum(net), 0) from by_size) as net, (select coalesce(sum(cups), 0) from by_size) as cups
+            (select coalesce(sum(net), 0) from by_size) as net, coalesce(sum(s.q), 0) as cups
        from s left join recipe_costs rc on rc.business_id = :biz and rc.month = :month and rc.drink_size_id = s.drink_size_id and rc.valid_from = s.range_start`,
     bindings,
   );
