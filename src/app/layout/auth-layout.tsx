@@ -6,9 +6,11 @@ import { paths } from '../../lib/paths';
 export function AuthLayout() {
   return (
     <div className="flex min-h-dvh flex-col items-center px-4 py-10 sm:py-16">
-      <Link to={paths.home.href()} className={`mb-8 rounded-sm text-2xl font-bold text-ink no-underline ${focusRing}`}>
-        Tamp <span className="text-copper">&amp;</span> Tally
-      </Link>
+      <header className="mb-8">
+        <Link to={paths.home.href()} className={`rounded-sm text-2xl font-bold text-ink no-underline ${focusRing}`}>
+          Tamp <span className="text-copper">&amp;</span> Tally
+        </Link>
+      </header>
       <main id="main" className="w-full max-w-xl">
         <Outlet />
       </main>

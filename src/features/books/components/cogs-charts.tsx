@@ -1,4 +1,4 @@
-import { Bar, BarChart, CartesianGrid, Legend, Line, LineChart, ResponsiveContainer, Tooltip, XAxis, YAxis } from 'recharts';
+import { Bar, BarChart, CartesianGrid, Line, LineChart, ResponsiveContainer, Tooltip, XAxis, YAxis } from 'recharts';
 import { ErrorState } from '../../../components/ui/error-state';
 import { SkeletonRows } from '../../../components/ui/skeleton';
 import { formatMoney } from '../../../lib/format';
@@ -7,14 +7,31 @@ import type { CogsReport } from '../api/types';
 import { categoryName } from './cogs-table';
 
 // Recharts draws with currentColor under the palette's text colours (tailwind.config.ts), so no
-// colour is written here. The charts are pictures of figures also given as text beside them.
+// colour is written here. The charts are pictures of figures also given as text beside them, so
+// they are hidden from screen readers and kept out of the tab order (no accessibility layer:
+// a focusable chart inside an aria-hidden box would be a stop that reads as nothing).
 const axis = { tick: { fill: 'currentColor', fontSize: 12 }, stroke: 'currentColor' };
 const monthName = (m: string) => new Date(`${m}-01T12:00:00Z`).toLocaleDateString(undefined, { month: 'short', year: '2-digit', timeZone: 'UTC' });
 
-function ChartFigure({ title, children, summary }: { title: string; children: React.ReactNode; summary: React.ReactNode }) {
+/** The series' names beside a swatch of their colour (Recharts' own legend would draw every swatch in the box's grey). */
+function SeriesKey({ series }: { series: { name: string; swatch: string }[] }) {
+  return (
+    <ul className="flex flex-wrap gap-4 text-sm text-ink" aria-label="Series">
+      {series.map((s) => (
+        <li key={s.name} className="flex items-center gap-2">
+          <span aria-hidden="true" className={`inline-block h-3 w-3 rounded-sm ${s.swatch}`} />
+          {s.name}
+        </li>
+      ))}
+    </ul>
+  );
+}
+
+function ChartFigure({ title, children, summary, series }: { title: string; children: React.ReactNode; summary: React.ReactNode; series?: { name: string; swatch: string }[] }) {
   return (
     <figure className="flex flex-col gap-2 rounded-lg border border-rule bg-card p-4">
       <figcaption className="font-medium">{title}</figcaption>
+      {series && <SeriesKey series={series} />}
       <div className="h-56 w-full text-muted" aria-hidden="true">
         {children}
       </div>
@@ -42,7 +59,7 @@ export function CogsTrendChart({ month, siteId }: { month: string; siteId: strin
       }
     >
       <ResponsiveContainer width="100%" height="100%">
-        <LineChart data={data} margin={{ top: 8, right: 16, bottom: 8, left: 0 }}>
+        <LineChart accessibilityLayer={false} data={data} margin={{ top: 8, right: 16, bottom: 8, left: 0 }}>
           <CartesianGrid stroke="currentColor" strokeOpacity={0.15} strokeDasharray="3 3" />
           <XAxis dataKey="month" {...axis} />
           <YAxis width={40} unit="%" {...axis} />
@@ -65,7 +82,7 @@ export function SupplierChart({ month, siteId, currency }: { month: string; site
       summary={q.data.suppliers.length ? q.data.suppliers.map((s) => `${s.supplier} ${formatMoney(s.net, currency)}`).join(' · ') : 'No deliveries received this month.'}
     >
       <ResponsiveContainer width="100%" height="100%">
-        <BarChart data={data} layout="vertical" margin={{ top: 8, right: 16, bottom: 8, left: 8 }}>
+        <BarChart accessibilityLayer={false} data={data} layout="vertical" margin={{ top: 8, right: 16, bottom: 8, left: 8 }}>
           <CartesianGrid stroke="currentColor" strokeOpacity={0.15} strokeDasharray="3 3" />
           <XAxis type="number" {...axis} />
           <YAxis type="category" dataKey="supplier" width={120} {...axis} />
@@ -80,14 +97,20 @@ export function SupplierChart({ month, siteId, currency }: { month: string; site
 export function CategoryChart({ report }: { report: CogsReport }) {
   const data = report.rows.map((r) => ({ category: categoryName(r.category), actual: Number(r.actual), theoretical: Number(r.theoretical) }));
   return (
-    <ChartFigure title="Actual against theoretical cost, by category" summary="The figures are in the table above.">
+    <ChartFigure
+      title="Actual against theoretical cost, by category"
+      summary="The figures are in the table above."
+      series={[
+        { name: 'Actual', swatch: 'bg-slate' },
+        { name: 'Theoretical', swatch: 'bg-butter' },
+      ]}
+    >
       <ResponsiveContainer width="100%" height="100%">
-        <BarChart data={data} margin={{ top: 8, right: 16, bottom: 8, left: 0 }}>
+        <BarChart accessibilityLayer={false} data={data} margin={{ top: 8, right: 16, bottom: 8, left: 0 }}>
           <CartesianGrid stroke="currentColor" strokeOpacity={0.15} strokeDasharray="3 3" />
           <XAxis dataKey="category" {...axis} interval={0} angle={-20} textAnchor="end" height={50} />
           <YAxis width={56} {...axis} />
           <Tooltip formatter={(v) => formatMoney(String(v), report.currency)} />
-          <Legend />
           <Bar dataKey="actual" name="Actual" className="text-slate" fill="currentColor" isAnimationActive={false} />
           <Bar dataKey="theoretical" name="Theoretical" className="text-butter" fill="currentColor" isAnimationActive={false} />
         </BarChart>

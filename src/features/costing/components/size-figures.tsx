@@ -69,8 +69,12 @@ export function SizeFigures({ cost, suggestedPrice, atSuggested, atCurrent, curr
             <dt className="text-muted">Profit per cup at menu price</dt>
             <dd className={fig}>{formatMoney(atCurrent.profit, currency)}</dd>
           </div>
+          {/* A <dl> holds only term and value groups, so the mark is a value with a term for screen readers. */}
           <div className="flex justify-end py-1.5">
-            <MarginMark marginPct={atCurrent.marginPct} targetPct={targetPct} />
+            <dt className="sr-only">Against the target margin</dt>
+            <dd>
+              <MarginMark marginPct={atCurrent.marginPct} targetPct={targetPct} />
+            </dd>
           </div>
         </>
       ) : (
