@@ -13,6 +13,9 @@ export default {
         muted: '#6B5F57',
         rule: '#E4DBCF',
         copper: '#B5562B',
+        // Copper taken a step towards ink, for hover states: white on it and it on paper
+        // stay above WCAG AA's 4.5:1, where a paler copper would fall below (DEVELOPERS.md).
+        'copper-deep': '#A04E29',
         slate: '#3E5C76',
         butter: '#E8C268',
         rose: '#B23A48',

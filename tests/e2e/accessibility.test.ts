@@ -72,6 +72,10 @@ interface Ids {
   order: string;
   finishedCount: string;
   card: string;
+  preparation: string;
+  modifier: string;
+  supplier: string;
+  draftOrder: string;
 }
 let ids: Ids;
 
@@ -95,6 +99,9 @@ describe('owner', () => {
     const orders = await getJson<{ orders: { id: string; status: string }[] }>(page, '/api/purchase-orders');
     const counts = await getJson<{ counts: { id: string; status: string }[] }>(page, '/api/stock-counts');
     const cards = await getJson<{ cards: { id: string }[] }>(page, '/api/cards');
+    const preparations = await getJson<{ preparations: { id: string }[] }>(page, '/api/preparations');
+    const modifiers = await getJson<{ modifiers: { id: string }[] }>(page, '/api/modifiers');
+    const suppliers = await getJson<{ suppliers: { id: string }[] }>(page, '/api/suppliers');
     ids = {
       drink: drinks.drinks[0].id,
       ingredient: (ingredients.ingredients.find((i) => i.name === 'Whole milk') ?? ingredients.ingredients[0]).id,
@@ -102,6 +109,10 @@ describe('owner', () => {
       order: (orders.orders.find((o) => o.status === 'placed') ?? orders.orders[0]).id,
       finishedCount: counts.counts.find((c) => c.status === 'finished')!.id,
       card: cards.cards[0].id,
+      preparation: preparations.preparations[0].id,
+      modifier: modifiers.modifiers[0].id,
+      supplier: suppliers.suppliers[0].id,
+      draftOrder: orders.orders.find((o) => o.status === 'draft')!.id,
     };
   });
 
@@ -128,10 +139,29 @@ describe('owner', () => {
     ['month end', () => '/month-end'],
     ['settings', () => '/settings'],
     ['team', () => '/team'],
+    // Beyond the main pages: the other editors and lists a day's work opens (visited, never saved).
+    ['a new drink', () => '/drinks/new'],
+    ['a preparation', () => `/preparations/${ids.preparation}`],
+    ['a modifier', () => `/modifiers/${ids.modifier}`],
+    ['a supplier', () => `/suppliers/${ids.supplier}`],
+    ['recipe cards', () => '/cards'],
+    ['price history of a drink', () => `/drinks/${ids.drink}/price-history`],
+    ['a draft order, editing', () => `/orders/${ids.draftOrder}/edit`],
+    ['receiving a placed order', () => `/orders/${ids.order}/receive`],
   ];
   test.each(pages)('%s', async (name, url) => {
     await visit(page, url());
     await checkPage(page, `owner: ${name}`);
+  });
+
+  test("repricing, a price rise's impact (a preview saves nothing)", async () => {
+    await visit(page, '/repricing');
+    await page.getByLabel('Ingredient').selectOption({ label: 'Whole milk' });
+    await page.getByLabel('New pack price').fill('13.50');
+    await page.getByRole('button', { name: 'See the impact' }).click();
+    await page.getByRole('table', { name: /Drinks and sizes affected/ }).waitFor();
+    await settled(page);
+    await checkPage(page, 'owner: repricing impact');
   });
 
   test('the user menu, open', async () => {

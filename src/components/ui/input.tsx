@@ -1,4 +1,4 @@
-import type { InputHTMLAttributes, Ref, SelectHTMLAttributes } from 'react';
+import type { InputHTMLAttributes, Ref, SelectHTMLAttributes, TextareaHTMLAttributes } from 'react';
 import { cx, focusRing } from './cx';
 import { useFieldControl } from './field';
 
@@ -39,4 +39,15 @@ export function Select({ id, invalid, className, 'aria-describedby': describedBy
       {children}
     </select>
   );
+}
+
+interface TextAreaProps extends TextareaHTMLAttributes<HTMLTextAreaElement> {
+  invalid?: boolean;
+  ref?: Ref<HTMLTextAreaElement>;
+}
+
+/** Several lines of text (notes, a method), labelled, described and marked invalid by its Field like Input. */
+export function TextArea({ id, invalid, className, 'aria-describedby': describedBy, ...rest }: TextAreaProps) {
+  const props = useControlProps(id, describedBy, invalid);
+  return <textarea {...rest} {...props} className={cx(props.className, className)} />;
 }

@@ -24,7 +24,8 @@ import { LinesEditor, type LineErrors } from './lines-editor';
 import { kindLabels } from './modifiers-table';
 import { fromLineOut, itemIds, lineItems, planPreview, toLineIn } from './preview-request';
 import { PreviewError, SizeColumns, SizeHeading } from './size-columns';
-import { UpchargeMark } from './upcharge-mark';
+import { FigureMark } from './size-figures';
+import { UpchargeMark, upchargeStatus } from './upcharge-mark';
 import { useDebouncedValue } from './use-debounced-value';
 
 type Action = 'add' | 'remove';
@@ -262,9 +263,11 @@ export function ModifierEditor({ modifier, sizes, ingredients, preparations, pri
                             {figures.suggestedUpcharge === null ? '—' : formatMoney(figures.suggestedUpcharge, currency)}
                           </dd>
                         </div>
-                        <div className="flex justify-end py-1.5">
-                          <UpchargeMark upcharge={upcharge} suggested={figures.suggestedUpcharge} />
-                        </div>
+                        {upchargeStatus(upcharge, figures.suggestedUpcharge) && (
+                          <FigureMark term="Upcharge against the suggested">
+                            <UpchargeMark upcharge={upcharge} suggested={figures.suggestedUpcharge} />
+                          </FigureMark>
+                        )}
                       </dl>
                     ) : (
                       <p className="py-1 text-sm text-muted">

@@ -6,7 +6,7 @@ import { Button } from '../../../components/ui/button';
 import { CardSection } from '../../../components/ui/card';
 import { Field } from '../../../components/ui/field';
 import { FormMessage } from '../../../components/ui/form-message';
-import { Input, Select } from '../../../components/ui/input';
+import { Input, Select, TextArea } from '../../../components/ui/input';
 import { useToast } from '../../../components/ui/toast';
 import { isApiError } from '../../../lib/api-client';
 import { formatMoney } from '../../../lib/format';
@@ -148,7 +148,7 @@ export function PreparationEditor({ preparation, ingredients, preparations, pric
               <Input inputMode="decimal" autoComplete="off" disabled={!canEdit} {...register('densityGPerMl')} />
             </Field>
             <Field label="Method" className="md:col-span-3" error={errors.method?.message}>
-              <textarea rows={3} disabled={!canEdit} className="w-full rounded-md border border-rule bg-card px-3 py-2 text-base text-ink" {...register('method')} />
+              <TextArea rows={3} disabled={!canEdit} {...register('method')} />
             </Field>
           </div>
         </CardSection>

@@ -1,3 +1,4 @@
+import type { ReactNode } from 'react';
 import { StatusMark } from '../../../components/ui/status-mark';
 import { formatMoney } from '../../../lib/format';
 import { dec } from '../../../shared/decimal';
@@ -13,6 +14,19 @@ export function MarginMark({ marginPct, targetPct, belowTarget }: { marginPct: s
   if (marginPct === null) return <StatusMark tone="neutral">no price</StatusMark>;
   const below = belowTarget ?? dec(marginPct).lt(dec(targetPct));
   return below ? <StatusMark tone="bad">below target</StatusMark> : <StatusMark tone="good">on target</StatusMark>;
+}
+
+/**
+ * A status mark at the foot of a list of figures, right-aligned. A <dl> may hold only term and
+ * value groups, so the mark is a value whose term only screen readers hear.
+ */
+export function FigureMark({ term, children }: { term: string; children: ReactNode }) {
+  return (
+    <div className="flex justify-end py-1.5">
+      <dt className="sr-only">{term}</dt>
+      <dd>{children}</dd>
+    </div>
+  );
 }
 
 /** A size's cost, suggested price and margins, as the preview or the saved costing gives them. */
@@ -69,13 +83,9 @@ export function SizeFigures({ cost, suggestedPrice, atSuggested, atCurrent, curr
             <dt className="text-muted">Profit per cup at menu price</dt>
             <dd className={fig}>{formatMoney(atCurrent.profit, currency)}</dd>
           </div>
-          {/* A <dl> holds only term and value groups, so the mark is a value with a term for screen readers. */}
-          <div className="flex justify-end py-1.5">
-            <dt className="sr-only">Against the target margin</dt>
-            <dd>
-              <MarginMark marginPct={atCurrent.marginPct} targetPct={targetPct} />
-            </dd>
-          </div>
+          <FigureMark term="Against the target margin">
+            <MarginMark marginPct={atCurrent.marginPct} targetPct={targetPct} />
+          </FigureMark>
         </>
       ) : (
         <div className={row}>

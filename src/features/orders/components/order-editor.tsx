@@ -5,12 +5,11 @@ import { z } from 'zod';
 import { useNavigate } from 'react-router-dom';
 import { Button } from '../../../components/ui/button';
 import { CardSection } from '../../../components/ui/card';
-import { focusRing } from '../../../components/ui/cx';
 import { EmptyState } from '../../../components/ui/empty-state';
 import { ErrorState } from '../../../components/ui/error-state';
 import { Field } from '../../../components/ui/field';
 import { FormMessage } from '../../../components/ui/form-message';
-import { Input } from '../../../components/ui/input';
+import { Input, TextArea } from '../../../components/ui/input';
 import { SkeletonRows } from '../../../components/ui/skeleton';
 import { StatusMark } from '../../../components/ui/status-mark';
 import { Table, Td, Th, THead } from '../../../components/ui/table';
@@ -146,7 +145,7 @@ function Form({ target, packs }: { target: EditorTarget; packs: CataloguePack[] 
 
       <div className="grid gap-6 md:grid-cols-[1fr_auto]">
         <Field label="Notes for the supplier" hint="Printed on the order." error={errors.notes?.message}>
-          <textarea rows={3} className={`w-full rounded-md border border-rule bg-card px-3 py-2 text-ink ${focusRing}`} {...register('notes')} />
+          <TextArea rows={3} {...register('notes')} />
         </Field>
         <div className="min-w-64 rounded-lg border border-rule bg-card p-4" aria-live="polite">
           <dl className="grid grid-cols-[1fr_auto] gap-x-6 gap-y-1 text-sm" data-totals>

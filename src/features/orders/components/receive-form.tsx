@@ -4,10 +4,9 @@ import { zodResolver } from '@hookform/resolvers/zod';
 import { z } from 'zod';
 import { Button, ButtonLink, TextLink } from '../../../components/ui/button';
 import { CardSection } from '../../../components/ui/card';
-import { focusRing } from '../../../components/ui/cx';
 import { Field } from '../../../components/ui/field';
 import { FormMessage } from '../../../components/ui/form-message';
-import { Input } from '../../../components/ui/input';
+import { Input, TextArea } from '../../../components/ui/input';
 import { StatusMark } from '../../../components/ui/status-mark';
 import { Table, Td, Th, THead } from '../../../components/ui/table';
 import { useToast } from '../../../components/ui/toast';
@@ -143,7 +142,7 @@ export function ReceiveForm({ order, onReceived }: { order: Order; onReceived: (
           <Input {...register('invoiceNumber')} />
         </Field>
         <Field label="Notes on the delivery" error={errors.notes?.message} className="sm:col-span-3">
-          <textarea rows={2} className={`w-full rounded-md border border-rule bg-card px-3 py-2 text-ink ${focusRing}`} {...register('notes')} />
+          <TextArea rows={2} {...register('notes')} />
         </Field>
       </div>
       <div className="flex flex-wrap gap-3">

@@ -20,7 +20,8 @@ export function PackPriceChart({ packId, title, currency, today }: { packId: str
       <figcaption className="font-medium">Price history: {title}</figcaption>
       <div className="h-56 w-full text-muted" aria-hidden="true">
         <ResponsiveContainer width="100%" height="100%">
-          <LineChart data={data} margin={{ top: 8, right: 16, bottom: 8, left: 8 }}>
+          {/* A picture only (aria-hidden above), so no accessibility layer to put it in the tab order. */}
+          <LineChart accessibilityLayer={false} data={data} margin={{ top: 8, right: 16, bottom: 8, left: 8 }}>
             <CartesianGrid stroke="currentColor" strokeOpacity={0.15} strokeDasharray="3 3" />
             <XAxis dataKey="date" tickFormatter={(d: string) => formatDate(d)} tick={{ fill: 'currentColor', fontSize: 12 }} stroke="currentColor" />
             <YAxis width={56} domain={['auto', 'auto']} tick={{ fill: 'currentColor', fontSize: 12 }} stroke="currentColor" />

@@ -8,7 +8,7 @@ import { ConfirmDialog } from '../../../components/ui/confirm-dialog';
 import { focusRing } from '../../../components/ui/cx';
 import { Field } from '../../../components/ui/field';
 import { FormMessage } from '../../../components/ui/form-message';
-import { Input } from '../../../components/ui/input';
+import { Input, TextArea } from '../../../components/ui/input';
 import { useToast } from '../../../components/ui/toast';
 import { isApiError } from '../../../lib/api-client';
 import { currencyDecimals } from '../../../lib/format';
@@ -95,7 +95,7 @@ export function SupplierForm({ supplier, currency, canEdit }: { supplier?: Suppl
               <Input {...register('accountNumber')} />
             </Field>
             <Field label="Notes" error={errors.notes?.message} className="sm:col-span-2">
-              <textarea rows={2} className={`w-full rounded-md border border-rule bg-card px-3 py-2 text-ink ${focusRing}`} {...register('notes')} />
+              <TextArea rows={2} {...register('notes')} />
             </Field>
           </div>
         </CardSection>
