@@ -148,6 +148,9 @@ describe('owner', () => {
     ['price history of a drink', () => `/drinks/${ids.drink}/price-history`],
     ['a draft order, editing', () => `/orders/${ids.draftOrder}/edit`],
     ['receiving a placed order', () => `/orders/${ids.order}/receive`],
+    // What goes wrong: a drink that is not there, a page that is not there.
+    ['a drink that does not exist', () => '/drinks/00000000-0000-4000-8000-000000000000'],
+    ['a page that does not exist', () => '/no-such-page'],
   ];
   test.each(pages)('%s', async (name, url) => {
     await visit(page, url());
@@ -162,6 +165,13 @@ describe('owner', () => {
     await page.getByRole('table', { name: /Drinks and sizes affected/ }).waitFor();
     await settled(page);
     await checkPage(page, 'owner: repricing impact');
+  });
+
+  test('a search that matches nothing', async () => {
+    await visit(page, '/preparations');
+    await page.getByLabel('Search preparations').fill('nothing is called this');
+    await expect.poll(() => page.locator('tbody tr').count()).toBeLessThanOrEqual(1);
+    await checkPage(page, 'owner: preparations, nothing found');
   });
 
   test('the user menu, open', async () => {
@@ -204,6 +214,9 @@ describe('barista on a phone', () => {
     ['a recipe card', () => `/cards/${ids.card}`],
     ['waste', () => '/waste'],
     ['an open count sheet', () => `/stock-counts/${openCount}`],
+    ['stock counts', () => '/stock-counts'],
+    ['recipe cards', () => '/cards'],
+    ['price list', () => '/price-list'],
   ];
   test.each(pages)('%s', async (name, url) => {
     await visit(page, url());
@@ -224,8 +237,14 @@ describe('bookkeeper', () => {
     await page.setViewportSize(DESK);
     await s.signIn(page, 'bookkeeper@demo.test');
   });
-  test('month end', async () => {
-    await visit(page, '/month-end');
-    await checkPage(page, 'bookkeeper: month end');
+  test.each([
+    ['month end', '/month-end'],
+    ['menu costing', '/menu-costing'],
+    ['stock', '/stock'],
+    ['till sales', '/till-sales'],
+  ])('%s', async (name, url) => {
+    await visit(page, url);
+    await checkPage(page, `bookkeeper: ${name}`);
   });
+
 });
