@@ -12,7 +12,7 @@ function useControlProps(id: string | undefined, describedBy: string | undefined
     id: id ?? field?.id,
     'aria-describedby': describedBy ?? field?.describedBy,
     'aria-invalid': isInvalid || undefined,
-    className: cx(control, focusRing, isInvalid ? 'border-rose' : 'border-rule'),
+    className: cx(control, focusRing, isInvalid ? 'border-rose' : 'border-edge'),
   };
 }
 

@@ -50,7 +50,7 @@ function describePack(item: SheetItem): string {
   return item.description.includes(size) ? item.description : `${item.description} (pack of ${size})`;
 }
 
-const bigInput = cx('w-full rounded-md border border-rule bg-card px-3 py-3 text-right text-xl tabular-nums text-ink', focusRing);
+const bigInput = cx('w-full rounded-md border border-edge bg-card px-3 py-3 text-right text-xl tabular-nums text-ink', focusRing);
 
 /**
  * One pack on the count sheet. It saves itself when a field is left or a choice is tapped, and
