@@ -246,5 +246,4 @@ describe('bookkeeper', () => {
     await visit(page, url);
     await checkPage(page, `bookkeeper: ${name}`);
   });
-
 });
