@@ -2,10 +2,11 @@ import type { Knex } from 'knex';
 import { assembleCogs, monthBounds, type CategoryFigures, type CogsRowOut, type CogsTotalsOut } from '../../src/shared/books';
 import { D, dec, type Dec } from '../../src/shared/decimal';
 import { writeQuantity } from '../../src/shared/money';
-import { chooseCounts, chosenCountsQuery, countValueByCategory, purchasesByCategory, salesAggregate, wasteInRange, type ChosenCount, type SalesAggregate } from './cogs.repo';
+import { chooseCounts, chosenCountsQuery, countValueByCategory, purchasesByCategory, salesAggregate, wasteInRange, type CategoryValue, type ChosenCount, type SalesAggregate, type WasteRow } from './cogs.repo';
 import { loadMonthCosting } from './month-costing';
 import { ensureRecipeCosts, type KnownCostingState } from './recipe-costs.service';
-import { valueWaste } from './waste.service';
+import { valueWaste, type WasteValue } from './waste.service';
+import { cacheFor } from '../costing/versions';
 import { notFound } from '../errors';
 
 export interface CountRef {
@@ -34,6 +35,8 @@ const refs = (counts: ChosenCount[]): CountRef[] => counts.map((c) => ({ siteId:
 
 /** What a report needs to know before its figures, read in ONE statement. */
 export interface ReportState extends KnownCostingState {
+  /** The business's books version (counts, deliveries, waste, sites). */
+  booksVersion: string;
   siteFound: boolean;
   currency: string;
   periodId: string | null;
@@ -43,7 +46,8 @@ export interface ReportState extends KnownCostingState {
 export async function reportState(db: Knex, businessId: string, month: string, siteId: string | null): Promise<ReportState> {
   const { rows } = await db.raw(
     `select b.currency,
-            (select version from costing_versions where business_id = b.id) as version,
+            (select version from data_versions where business_id = b.id and kind = 'costing') as version,
+            (select version from data_versions where business_id = b.id and kind = 'books') as books_version,
             (select fingerprint from recipe_cost_months where business_id = b.id and month = :month) as fingerprint,
             p.id as period_id, p.status as period_status,
             (:site::uuid is null or exists (select 1 from sites s where s.id = :site::uuid and s.business_id = b.id)) as site_found
@@ -53,7 +57,7 @@ export async function reportState(db: Knex, businessId: string, month: string, s
   );
   const r = rows[0];
   if (!r) throw new Error(`Business ${businessId} not found`);
-  return { currency: r.currency, version: r.version === null ? '0' : String(r.version), fingerprint: r.fingerprint, periodId: r.period_id, closed: r.period_status === 'closed', siteFound: r.site_found };
+  return { currency: r.currency, version: r.version === null ? '0' : String(r.version), booksVersion: r.books_version === null ? '0' : String(r.books_version), fingerprint: r.fingerprint, periodId: r.period_id, closed: r.period_status === 'closed', siteFound: r.site_found };
 }
 
 /**
@@ -67,25 +71,54 @@ export async function monthSales(db: Knex, businessId: string, siteId: string | 
   return salesAggregate(db, businessId, siteId, month, first, last, costing.ranges.map((r) => r.from));
 }
 
-/** The month's cost of goods worked out now from the stored rows (never from a snapshot). */
-export async function computeCogs(db: Knex, businessId: string, month: string, siteId: string | null, known?: ReportState): Promise<Omit<CogsReport, 'closed'>> {
+interface SideFigures {
+  sites: { id: string; name: string }[];
+  opening: { counts: ChosenCount[]; values: CategoryValue[] };
+  closing: { counts: ChosenCount[]; values: CategoryValue[] };
+  purchases: { category: string; net: string }[];
+  waste: { rows: WasteRow[]; values: Map<string, WasteValue> };
+}
+
+/** Reports' other figures kept per database handle (a business, month and site each). */
+const SIDE_CACHE_LIMIT = 200;
+
+/**
+ * Everything of the month's report besides the sales, in one round of parallel statements:
+ * counts chosen and valued in one statement each, deliveries by category, and waste valued in
+ * memory by the month's cost models.
+ */
+async function sideFigures(db: Knex, businessId: string, month: string, siteId: string | null, costingVersionNow: string): Promise<SideFigures> {
   const { first, last, previousLast } = monthBounds(month);
-  const state = known ?? (await reportState(db, businessId, month, siteId));
-  // Every figure in one round of parallel statements: counts chosen and valued in one
-  // statement each, waste valued in memory by the month's cost models, while the sales
-  // aggregate runs.
   const countsOn = (day: string, exactly: boolean) => Promise.all([
     chooseCounts(db, businessId, siteId, day, exactly),
     countValueByCategory(db, chosenCountsQuery(db, businessId, siteId, day, exactly)),
   ]).then(([counts, values]) => ({ counts, values }));
-  const [sites, opening, closing, purchases, sales, waste] = await Promise.all([
+  const [sites, opening, closing, purchases, waste] = await Promise.all([
     db('sites').where({ business_id: businessId }).modify((q) => (siteId ? q.where({ id: siteId }) : q)).orderBy('created_at').select('id', 'name') as Promise<{ id: string; name: string }[]>,
     countsOn(previousLast, false),
     countsOn(last, true),
     purchasesByCategory(db, businessId, siteId, first, last),
-    monthSales(db, businessId, siteId, month, state),
-    wasteInRange(db, businessId, siteId, first, last).then(async (rows) => ({ rows, values: await valueWaste(db, businessId, month, rows, state.version) })),
+    wasteInRange(db, businessId, siteId, first, last).then(async (rows) => ({ rows, values: await valueWaste(db, businessId, month, rows, costingVersionNow) })),
   ]);
+  return { sites, opening, closing, purchases, waste };
+}
+
+/** The month's cost of goods worked out now from the stored rows (never from a snapshot). */
+export async function computeCogs(db: Knex, businessId: string, month: string, siteId: string | null, known?: ReportState): Promise<Omit<CogsReport, 'closed'>> {
+  const { last, previousLast } = monthBounds(month);
+  const state = known ?? (await reportState(db, businessId, month, siteId));
+  // The sales aggregate, always worked out in SQL; beside it the report's other figures, kept
+  // while the business's books and costing versions stand (counts, deliveries and waste change
+  // far less often than the report is read).
+  const [side, sales] = await Promise.all([
+    cacheFor<SideFigures>(db, 'cogs-side-figures', SIDE_CACHE_LIMIT).get(
+      `${businessId}|${month}|${siteId ?? 'all'}`,
+      `${state.version}:${state.booksVersion}`,
+      () => sideFigures(db, businessId, month, siteId, state.version),
+    ),
+    monthSales(db, businessId, siteId, month, state),
+  ]);
+  const { sites, opening, closing, purchases, waste } = side;
   const { currency } = state;
   const [openingValues, closingValues, wasteValues] = [opening.values, closing.values, waste.values];
 

@@ -1,17 +1,26 @@
 import type { Knex } from 'knex';
 
+/** Kinds of data with a version each (see the migration costing_versions). */
+export type DataKind = 'costing' | 'books';
+
 /**
- * The business's costing version: a number that goes up with every committed change to
- * anything costs and menu prices are worked out from (kept by triggers; see the migration
- * costing_versions). '0' until the first change.
+ * The business's version of a kind of data: a number that goes up with every committed change
+ * to it (kept by triggers). 'costing' covers anything costs and menu prices are worked out
+ * from; 'books' the counts, deliveries, waste and sites of the cost-of-goods report. '0' until
+ * the first change.
  *
  * Read it BEFORE reading the data a result is computed from: a change committed in between
  * then leaves newer data under an older version, which the next read recomputes, never older
  * data under a newer one.
  */
-export async function costingVersion(db: Knex, businessId: string): Promise<string> {
-  const row = await db('costing_versions').where({ business_id: businessId }).first('version');
+export async function dataVersion(db: Knex, businessId: string, kind: DataKind): Promise<string> {
+  const row = await db('data_versions').where({ business_id: businessId, kind }).first('version');
   return row ? String(row.version) : '0';
+}
+
+/** The business's costing version ({@link dataVersion} of 'costing'). */
+export function costingVersion(db: Knex, businessId: string): Promise<string> {
+  return dataVersion(db, businessId, 'costing');
 }
 
 interface Entry<T> {

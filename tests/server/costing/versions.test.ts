@@ -1,7 +1,7 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { COSTING_TABLES } from '../../../migrations/20261204000000_costing_versions';
+import { BOOKS_TABLES, COSTING_TABLES } from '../../../migrations/20261204000000_costing_versions';
 import { menuCosting } from '../../../server/costing/menu.service';
-import { costingVersion } from '../../../server/costing/versions';
+import { costingVersion, dataVersion } from '../../../server/costing/versions';
 import { startTestApp, type TestContext } from '../../helpers/context';
 import { makeBusiness, signIn } from '../../helpers/factories';
 import { makeDrink, makeIngredient, makeSize } from '../../helpers/costing-factories';
@@ -13,11 +13,24 @@ beforeAll(async () => {
 afterAll(() => ctx.close());
 
 describe('costing versions', () => {
-  it('has a trigger on every table costs and menu prices are worked out from', async () => {
-    const { rows } = await ctx.db.raw(
-      "select tgrelid::regclass::text as t from pg_trigger where tgname like '%\\_costing\\_version' and tgdeferrable and tginitdeferred order by 1",
-    );
-    expect(rows.map((r: { t: string }) => r.t)).toEqual([...COSTING_TABLES, 'businesses'].sort());
+  it('has a deferred trigger on every table costs and menu prices are worked out from, and on every table of the books the report reads', async () => {
+    const tables = async (kind: string) => (await ctx.db.raw(
+      `select tgrelid::regclass::text as t from pg_trigger where tgname like '%\\_${kind}\\_version' and tgdeferrable and tginitdeferred order by 1`,
+    )).rows.map((r: { t: string }) => r.t);
+    expect(await tables('costing')).toEqual([...COSTING_TABLES, 'businesses'].sort());
+    expect(await tables('books')).toEqual([...BOOKS_TABLES].sort());
+  });
+
+  it('keeps the books version apart from the costing version', async () => {
+    const f = await makeBusiness(ctx.db);
+    const [site] = f.siteIds;
+    const before = { costing: await costingVersion(ctx.db, f.businessId), books: await dataVersion(ctx.db, f.businessId, 'books') };
+    await ctx.db('stock_counts').insert({ business_id: f.businessId, site_id: site, count_date: '2026-10-31' });
+    expect(await dataVersion(ctx.db, f.businessId, 'books')).toBe(String(Number(before.books) + 1));
+    expect(await costingVersion(ctx.db, f.businessId)).toBe(before.costing);
+    await makeSize(ctx.db, f.businessId);
+    expect(await costingVersion(ctx.db, f.businessId)).toBe(String(Number(before.costing) + 1));
+    expect(await dataVersion(ctx.db, f.businessId, 'books')).toBe(String(Number(before.books) + 1));
   });
 
   it('moves on once per committed transaction and business, never for a rolled-back one or another business', async () => {
