@@ -37,8 +37,10 @@ export async function run(ctx: { db: Knex; businessId: string; baseUrl: string }
   console.log(`  one site: ${first.cups} cups, net sales £${first.totals.netSales}, actual £${first.totals.actual}, theoretical £${first.totals.theoretical}, ${first.rows.length} categories, ${first.notes.length} notes`);
 
   // The month's report of the business (all its sites: the report's default) carries the
-  // target; one site's is shown beside it, where the report's fixed cost (its other figures:
-  // counts, deliveries, waste, a handful of small statements) weighs more against fewer lines.
+  // target; one site's is shown beside it, where the report's fixed cost (reading its state and
+  // versions, the theoretical cost's join, HTTP) weighs more against fewer lines. Warm: the
+  // month's recipe costs, cost models and the report's other figures (counts, deliveries,
+  // waste) are kept while nothing changes; the sales aggregate is worked out every time.
   const all = await measureTogether({
     bare: () => bareAggregate(db, businessId, MONTH, null),
     service: () => cogsReport(db, businessId, MONTH, null),
