@@ -18,7 +18,8 @@ export function PageHeader({ title, description, action }: PageHeaderProps) {
         <h1 className="text-2xl font-bold text-ink">{title}</h1>
         {description && <p className="mt-1 max-w-prose text-muted">{description}</p>}
       </div>
-      {action && <div className="shrink-0 print:hidden">{action}</div>}
+      {/* At most the page's width, so several actions wrap on a phone instead of pushing past its edge. */}
+      {action && <div className="max-w-full shrink-0 print:hidden">{action}</div>}
     </div>
   );
 }

@@ -5,8 +5,10 @@ import { formatQuantity } from '../../../lib/format';
 
 /** The cup sizes side by side, scrolling sideways when they do not fit. */
 export function SizeColumns({ count, children }: { count: number; children: ReactNode }) {
+  // Relative, so the screen-reader-only words in the columns (absolutely placed) are held in the
+  // scroller too: without it they stuck out past a phone's edge and the whole page scrolled sideways.
   return (
-    <div className="overflow-x-auto pb-2">
+    <div className="relative overflow-x-auto pb-2">
       <div className="grid gap-4" style={{ gridTemplateColumns: `repeat(${count}, minmax(17rem, 1fr))` }}>
         {children}
       </div>
