@@ -20,7 +20,7 @@ const sizes: Record<Size, string> = {
 
 export function buttonClasses(variant: Variant = 'primary', size: Size = 'md', className?: string): string {
   return cx(
-    'inline-flex items-center justify-center gap-2 rounded-md font-medium transition-colors disabled:cursor-not-allowed disabled:opacity-60',
+    'inline-flex items-center justify-center gap-2 rounded-md font-medium transition-colors disabled:cursor-not-allowed disabled:opacity-60 aria-disabled:cursor-not-allowed aria-disabled:opacity-60',
     focusRing,
     variants[variant],
     sizes[size],
@@ -35,9 +35,26 @@ interface ButtonProps extends ButtonHTMLAttributes<HTMLButtonElement> {
   ref?: Ref<HTMLButtonElement>;
 }
 
-export function Button({ variant = 'primary', size = 'md', busy = false, className, disabled, children, type = 'button', ...rest }: ButtonProps) {
+/**
+ * A button. While busy it stays focusable (marked aria-disabled, and a press does nothing):
+ * a disabled button drops the focus to the page, so a keyboard user who pressed Save would
+ * have to find their place again.
+ */
+export function Button({ variant = 'primary', size = 'md', busy = false, className, disabled, children, type = 'button', onClick, ...rest }: ButtonProps) {
   return (
-    <button type={type} className={buttonClasses(variant, size, className)} disabled={disabled || busy} aria-busy={busy || undefined} {...rest}>
+    <button
+      type={type}
+      className={buttonClasses(variant, size, className)}
+      disabled={disabled}
+      aria-disabled={(busy && !disabled) || undefined}
+      aria-busy={busy || undefined}
+      onClick={(e) => {
+        // Also stops a submit button sending its form a second time (a click, or Enter in a field).
+        if (busy) return e.preventDefault();
+        onClick?.(e);
+      }}
+      {...rest}
+    >
       {busy && <span aria-hidden="true" className="h-3 w-3 animate-spin rounded-full border-2 border-current border-t-transparent" />}
       {children}
     </button>
