@@ -1,4 +1,4 @@
-import { useState } from 'react';
+import { useLayoutEffect, useRef, useState, type RefObject } from 'react';
 import { Link, Navigate, Outlet, useLocation } from 'react-router-dom';
 import { cx, focusRing } from '../../components/ui/cx';
 import { ErrorState, ForbiddenState } from '../../components/ui/error-state';
@@ -21,6 +21,27 @@ function LoadingShell() {
 }
 
 /**
+ * When a page change takes the focused control away with the old page (a link or a button inside
+ * it, such as "Add a drink" or a form's Save that opens the saved item), the focus would fall back
+ * to the document and the next Tab would start from nowhere a reader can tell. The new page's title
+ * takes it instead. A control that is still there (a section link in the side navigation) keeps it.
+ */
+function useFocusAfterPageChange(pathname: string, mainRef: RefObject<HTMLElement | null>) {
+  const shown = useRef(pathname);
+  // Before the browser paints the new page, so the focus is never seen lost.
+  useLayoutEffect(() => {
+    if (shown.current === pathname) return;
+    shown.current = pathname;
+    const active = document.activeElement;
+    if (active && active !== document.body && active.isConnected) return;
+    const main = mainRef.current;
+    const title = main?.querySelector('h1');
+    if (title && !title.hasAttribute('tabindex')) title.tabIndex = -1;
+    (title ?? main)?.focus();
+  }, [pathname, mainRef]);
+}
+
+/**
  * The signed-in frame: top bar (business, site, person), section navigation,
  * and the page. Sends signed-out visitors to sign in and keeps each section
  * to the roles listed for it in navigation.ts.
@@ -30,6 +51,8 @@ export function AppLayout() {
   const business = useBusiness();
   const location = useLocation();
   const [menuOpen, setMenuOpen] = useState(false);
+  const mainRef = useRef<HTMLElement>(null);
+  useFocusAfterPageChange(location.pathname, mainRef);
 
   if (me.isPending) return <LoadingShell />;
   if (me.isError)
@@ -92,7 +115,7 @@ export function AppLayout() {
         <nav aria-label="Sections" className="sticky top-16 hidden h-fit w-52 shrink-0 py-6 md:block">
           <SideNav role={user.role} />
         </nav>
-        <main id="main" tabIndex={-1} className="min-w-0 flex-1 py-6 focus:outline-none">
+        <main ref={mainRef} id="main" tabIndex={-1} className="min-w-0 flex-1 py-6 focus:outline-none">
           {allowed ? <Outlet /> : <ForbiddenState />}
         </main>
       </div>
