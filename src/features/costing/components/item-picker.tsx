@@ -1,4 +1,4 @@
-import { useId, useState } from 'react';
+import { useId, useState, type Ref } from 'react';
 import { Input } from '../../../components/ui/input';
 
 export interface ItemChoice {
@@ -10,9 +10,10 @@ export interface ItemChoice {
 /**
  * A searchable choice of ingredient or preparation: type to narrow the list,
  * pick a name. The field's value is the item's key; typed text that names no
- * item leaves it empty, and the form says so.
+ * item leaves it empty, and the form says so. The form's ref reaches the box, so a new line
+ * and a line the server refused can take the focus there.
  */
-export function ItemPicker({ id, value, choices, onChange, onBlur, invalid, describedBy, label }: {
+export function ItemPicker({ id, value, choices, onChange, onBlur, invalid, describedBy, label, disabled, ref }: {
   id: string;
   value: string;
   choices: readonly ItemChoice[];
@@ -21,12 +22,15 @@ export function ItemPicker({ id, value, choices, onChange, onBlur, invalid, desc
   invalid?: boolean;
   describedBy?: string;
   label: string;
+  disabled?: boolean;
+  ref?: Ref<HTMLInputElement>;
 }) {
   const listId = useId();
   const [text, setText] = useState(() => choices.find((c) => c.key === value)?.label ?? '');
   return (
     <>
       <Input
+        ref={ref}
         id={id}
         list={listId}
         value={text}
@@ -35,6 +39,7 @@ export function ItemPicker({ id, value, choices, onChange, onBlur, invalid, desc
         aria-label={label}
         aria-describedby={describedBy}
         invalid={invalid}
+        disabled={disabled}
         onBlur={onBlur}
         onChange={(e) => {
           const t = e.target.value;

@@ -1,3 +1,4 @@
+import { useEffect, useRef } from 'react';
 import { Controller, useFieldArray, useWatch, type Control, type FieldValues, type UseFormGetValues, type UseFormRegister, type UseFormSetValue } from 'react-hook-form';
 import { Button } from '../../../components/ui/button';
 import { Input, Select } from '../../../components/ui/input';
@@ -42,6 +43,22 @@ function unitForItem(item: LineItem | undefined, unit: string): string {
 }
 
 /**
+ * Focus for after the next render: a control the list's change removed, disabled or moved
+ * (Remove, or a move button at the end of the list) would otherwise drop it to the page.
+ */
+function useFocusAfterRender() {
+  const pending = useRef<string | null>(null);
+  useEffect(() => {
+    if (!pending.current) return;
+    document.getElementById(pending.current)?.focus();
+    pending.current = null;
+  });
+  return (id: string) => {
+    pending.current = id;
+  };
+}
+
+/**
  * The lines of a build or a preparation: item, quantity with its unit or measure
  * beside it, and (when costed) each line's cost to 4 decimals.
  */
@@ -67,6 +84,21 @@ export function LinesEditor<T extends FieldValues>({ control, register, setValue
   const lines = (useWatch({ control, name: name as never }) ?? []) as FormLine[];
   const choices = [...items.values()];
   const at = (j: number, field: keyof FormLine) => `${name}.${j}.${field}` as never;
+  const focusLater = useFocusAfterRender();
+  const lineId = (j: number, part: 'item' | 'up' | 'down') => `${idPrefix}-line-${j}-${part}`;
+  const addId = `${idPrefix}-add-line`;
+  // Where the focus goes when a line goes: the line that took its place, else the one before, else Add a line.
+  const removeLine = (j: number) => {
+    remove(j);
+    focusLater(j < fields.length - 1 ? lineId(j, 'item') : j > 0 ? lineId(j - 1, 'item') : addId);
+  };
+  // A moved line keeps the focus on its move button, or on the other one once it reaches an end.
+  const moveLine = (j: number, to: number) => {
+    move(j, to);
+    const [same, other] = to < j ? (['up', 'down'] as const) : (['down', 'up'] as const);
+    const atEnd = to === 0 || to === fields.length - 1;
+    focusLater(lineId(to, atEnd ? other : same));
+  };
 
   return (
     <div className="flex flex-col gap-3">
@@ -81,7 +113,7 @@ export function LinesEditor<T extends FieldValues>({ control, register, setValue
           const units = unitsFor(item?.baseUnit, item?.density);
           return (
             <li key={f.id} className="rounded-md border border-rule bg-paper/60 p-2" aria-label={`Line ${j + 1}`}>
-              <label htmlFor={`${base}-item`} className="mb-1 block text-xs font-medium text-muted">
+              <label htmlFor={lineId(j, 'item')} className="mb-1 block text-xs font-medium text-muted">
                 Item
               </label>
               <Controller
@@ -89,12 +121,14 @@ export function LinesEditor<T extends FieldValues>({ control, register, setValue
                 name={at(j, 'item')}
                 render={({ field }) => (
                   <ItemPicker
-                    id={`${base}-item`}
+                    ref={field.ref}
+                    id={lineId(j, 'item')}
                     label={`Item, line ${j + 1}`}
                     value={field.value as unknown as string}
                     choices={choices}
                     invalid={Boolean(e?.item)}
                     describedBy={e?.item ? `${base}-item-error` : undefined}
+                    disabled={disabled}
                     onBlur={field.onBlur}
                     onChange={(key) => {
                       field.onChange(key);
@@ -179,13 +213,13 @@ export function LinesEditor<T extends FieldValues>({ control, register, setValue
                   </span>
                 </p>
                 <div className="flex shrink-0 gap-0.5">
-                  <Button variant="quiet" size="sm" disabled={disabled || j === 0} onClick={() => move(j, j - 1)} aria-label={`Move line ${j + 1} up`}>
+                  <Button id={lineId(j, 'up')} variant="quiet" size="sm" disabled={disabled || j === 0} onClick={() => moveLine(j, j - 1)} aria-label={`Move line ${j + 1} up`}>
                     ↑
                   </Button>
-                  <Button variant="quiet" size="sm" disabled={disabled || j === fields.length - 1} onClick={() => move(j, j + 1)} aria-label={`Move line ${j + 1} down`}>
+                  <Button id={lineId(j, 'down')} variant="quiet" size="sm" disabled={disabled || j === fields.length - 1} onClick={() => moveLine(j, j + 1)} aria-label={`Move line ${j + 1} down`}>
                     ↓
                   </Button>
-                  <Button variant="quiet" size="sm" disabled={disabled} onClick={() => remove(j)}>
+                  <Button variant="quiet" size="sm" disabled={disabled} onClick={() => removeLine(j)}>
                     Remove<span className="sr-only"> line {j + 1}</span>
                   </Button>
                 </div>
@@ -195,7 +229,8 @@ export function LinesEditor<T extends FieldValues>({ control, register, setValue
         })}
       </ol>
       <div>
-        <Button variant="secondary" size="sm" disabled={disabled} onClick={() => append(emptyLine() as never)}>
+        {/* The new line's item takes the focus: the form would otherwise pick its first registered box, the quantity. */}
+        <Button id={addId} variant="secondary" size="sm" disabled={disabled} onClick={() => append(emptyLine() as never, { focusName: at(fields.length, 'item') })}>
           Add a line
         </Button>
       </div>
