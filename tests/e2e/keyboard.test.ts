@@ -238,14 +238,20 @@ test('the owner costs a new drink with the keyboard alone', async () => {
     await tabTo(named('button', 'Save drink'), 'Save drink');
     // The save is held back a moment, as on a slow connection, to see the button while it works:
     // it keeps the focus (a disabled button would drop it to the page).
+    let posts = 0;
     await page.route('**/api/drinks', async (route) => {
-      if (route.request().method() === 'POST') await new Promise((r) => setTimeout(r, 1500));
+      if (route.request().method() === 'POST') {
+        posts++;
+        await new Promise((r) => setTimeout(r, 1500));
+      }
       await route.continue();
     });
     f = await press('Enter');
     expect(describeFocus(f)).toBe('button "Save drink"');
     expect(await page.evaluate(() => document.activeElement?.getAttribute('aria-busy'))).toBe('true');
     await shot('saving');
+    // A second press while it works sends nothing more.
+    await press('Enter');
     await page.waitForURL((u) => /\/drinks\/[0-9a-f-]{36}$/.test(u.pathname));
     drinkId = new URL(page.url()).pathname.split('/').pop()!;
     await page.getByText(`${name} saved.`).waitFor();
@@ -259,6 +265,7 @@ test('the owner costs a new drink with the keyboard alone', async () => {
     // What the editor showed is what the server costs for the saved drink.
     const saved = await getJson<Costing>(page, `/api/drinks/${drinkId}/costing`);
     expect(saved.sizes.map((x) => x.name)).toEqual([kept]);
+    expect(posts, 'one save sent').toBe(1);
     expect(saved.sizes[0].cost).toBe(shownCost);
     expect(saved.sizes[0].suggestedPrice).toBe(shownSuggested);
     const reloaded = page.getByTestId(`figures-${kept}`).locator('[data-figure="cost"]');

@@ -106,7 +106,10 @@ export function DrinkEditor({ drink, sizes, ingredients, preparations, pricing, 
   // Figures are "ready" once they answer what is on screen now, not a build typed a moment ago.
   const ready = JSON.stringify(watched) === JSON.stringify(settled) && !plan.waiting && !preview.isFetching && !details.isFetching;
 
+  const busy = create.isPending || replace.isPending;
   const onSubmit = handleSubmit(async (values) => {
+    // Enter in a field while a save is under way presses the page's top Save, which is not busy.
+    if (busy) return;
     setFormError(null);
     const body = toDrinkIn(values);
     const offeredIndex = values.sizes.map((s, i) => (s.offered ? i : -1)).filter((i) => i >= 0);
@@ -138,7 +141,6 @@ export function DrinkEditor({ drink, sizes, ingredients, preparations, pricing, 
     notify(`${getValues(`sizes.${from}.name`)} build copied to ${getValues(`sizes.${to}.name`)}. Adjust the quantities, then save.`);
   };
 
-  const busy = create.isPending || replace.isPending;
   const targetPct = policy.targetMarginPct;
   const categoryListId = 'drink-category-options';
 
