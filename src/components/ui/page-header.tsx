@@ -15,7 +15,8 @@ export function PageHeader({ title, description, action }: PageHeaderProps) {
   return (
     <div className="mb-6 flex flex-wrap items-start justify-between gap-4">
       <div className="min-w-0">
-        <h1 className="text-2xl font-bold text-ink">{title}</h1>
+        {/* As wide as its words, so the ring it shows when a page change gives it the focus hugs them. */}
+        <h1 className="w-fit max-w-full text-2xl font-bold text-ink">{title}</h1>
         {description && <p className="mt-1 max-w-prose text-muted">{description}</p>}
       </div>
       {/* At most the page's width, so several actions wrap on a phone instead of pushing past its edge. */}
