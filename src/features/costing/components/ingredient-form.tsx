@@ -80,6 +80,8 @@ export function IngredientForm({ ingredient, suppliers, currency, canEdit }: { i
   const units = unitsFor(baseUnit, density);
 
   const onSubmit = handleSubmit(async (v) => {
+    // Enter in a field while a save is under way would send it again (a page's other Save is not the busy one).
+    if (create.isPending || update.isPending) return;
     setFormError(null);
     try {
       const saved = ingredient ? await update.mutateAsync({ original: ingredient, values: toValues(v) }) : await create.mutateAsync(toValues(v));

@@ -121,6 +121,8 @@ export function ModifierEditor({ modifier, sizes, ingredients, preparations, pri
   const ready = current && JSON.stringify(watched) === JSON.stringify(settled) && !plan.waiting && !preview.isFetching && !details.isFetching;
 
   const onSubmit = handleSubmit(async (values) => {
+    // Enter in a field while a save is under way would send it again (a page's other Save is not the busy one).
+    if (create.isPending || replace.isPending) return;
     setFormError(null);
     const { body, origins } = toModifierIn(values);
     try {

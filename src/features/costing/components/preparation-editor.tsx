@@ -102,6 +102,8 @@ export function PreparationEditor({ preparation, ingredients, preparations, pric
   const yieldUnit = (watched.yieldUnit ?? 'l') as UnitCode;
 
   const onSubmit = handleSubmit(async (v) => {
+    // Enter in a field while a save is under way would send it again (a page's other Save is not the busy one).
+    if (create.isPending || replace.isPending) return;
     setFormError(null);
     const body = {
       name: v.name.trim(),

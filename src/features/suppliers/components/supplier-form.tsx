@@ -56,6 +56,8 @@ export function SupplierForm({ supplier, currency, canEdit }: { supplier?: Suppl
   });
 
   const onSubmit = handleSubmit((v) => {
+    // Enter in a field while a save is under way would send it again (a page's other Save is not the busy one).
+    if (save.isPending) return;
     setFormError(null);
     save.mutate(
       {
