@@ -46,7 +46,7 @@ test('the owner adds a storage area, orders and renames it, puts a pack there, a
     await section.getByLabel('New storage area').fill('Back shelf');
     await section.getByRole('button', { name: 'Add area' }).click();
     await list.getByText('Back shelf').waitFor();
-    expect(await section.getByLabel('New storage area').inputValue()).toBe('');
+    await expect.poll(() => section.getByLabel('New storage area').inputValue()).toBe('');
     expect(await areaNames(page)).toEqual(['Fridge', 'Bar', 'Dry store', 'Back shelf']);
 
     // Up one place, then renamed inline (Enter saves).
