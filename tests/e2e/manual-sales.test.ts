@@ -71,7 +71,8 @@ test('the manual day loads what was saved for it, says saving replaces it, repla
     await status.getByText(`2 lines typed in for ${shown}, shown below.`).waitFor();
     await form.getByTestId('manual-day-replaces').getByText(`This replaces the 2 lines saved for ${shown}`).waitFor();
     expect(await form.getByRole('listitem').count()).toBe(2);
-    expect(await row(0).getByLabel('Drink 1', { exact: true }).inputValue()).toBe(first.lines[0].drinkSizeId);
+    // The form takes the loaded lines once they have arrived (a render after the status line).
+    await expect.poll(() => row(0).getByLabel('Drink 1', { exact: true }).inputValue()).toBe(first.lines[0].drinkSizeId);
     expect(await row(0).getByLabel('Cups sold').inputValue()).toBe('14');
     expect(await row(0).getByLabel('Net sales').inputValue()).toBe('40.25');
     expect(await row(1).getByLabel('Drink 2', { exact: true }).inputValue()).toBe(first.lines[1].drinkSizeId);
@@ -98,7 +99,7 @@ test('the manual day loads what was saved for it, says saving replaces it, repla
     await page.reload();
     await open(day);
     await status.getByText(`1 line typed in for ${shown}, shown below.`).waitFor();
-    expect(await row(0).getByLabel('Cups sold').inputValue()).toBe('15');
+    await expect.poll(() => row(0).getByLabel('Cups sold').inputValue()).toBe('15');
 
     // A day of the closed month: shown, not savable.
     await open(closedDay);
