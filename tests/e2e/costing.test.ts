@@ -1,7 +1,7 @@
 import { afterAll, beforeAll, expect, test } from 'vitest';
 import type { Page } from 'playwright-core';
 import { formatMoney } from '../../src/lib/format';
-import { serveDemo, type Served } from './harness';
+import { serveDemo, type Served, getJson } from './harness';
 
 // The first journey of the costing work, in a real browser against the seeded demo café:
 // the owner costs a new drink in three sizes, finds it in menu costing, a barista reads its card.
@@ -13,14 +13,6 @@ beforeAll(async () => {
 afterAll(() => s?.close());
 
 const shot = (page: Page, name: string) => s.shot(page, `costing/${name}`);
-
-async function api<T>(page: Page, url: string): Promise<T> {
-  return page.evaluate(async (u) => {
-    const r = await fetch(u);
-    if (!r.ok) throw new Error(`${u} answered ${r.status}`);
-    return r.json();
-  }, url) as Promise<T>;
-}
 
 interface Costing {
   currency: string;
@@ -42,7 +34,7 @@ test('the owner costs a new drink in three sizes, finds it in menu costing, and 
   try {
     await s.signIn(page, 'owner@demo.test');
     const locale = await page.evaluate(() => navigator.language);
-    const { sizes } = await api<{ sizes: { id: string; name: string }[] }>(page, '/api/sizes');
+    const { sizes } = await getJson<{ sizes: { id: string; name: string }[] }>(page, '/api/sizes');
     expect(sizes.length).toBeGreaterThanOrEqual(3);
     const [small, regular, large] = sizes.map((x) => x.name);
 
@@ -105,7 +97,7 @@ test('the owner costs a new drink in three sizes, finds it in menu costing, and 
     await page.getByText(`${name} saved.`).waitFor();
 
     // What the editor showed is what the server costs for the saved drink.
-    const saved = await api<Costing>(page, `/api/drinks/${drinkId}/costing`);
+    const saved = await getJson<Costing>(page, `/api/drinks/${drinkId}/costing`);
     expect(saved.sizes.map((x) => x.name)).toEqual([small, regular, large]);
     for (const size of saved.sizes) {
       expect(shown[size.name].cost).toBe(size.cost);
@@ -150,7 +142,7 @@ test('the owner costs a new drink in three sizes, finds it in menu costing, and 
     await shot(page, 'barista-home-phone');
     await page.getByRole('link', { name: new RegExp(name) }).click();
     await page.getByRole('heading', { name, level: 1 }).waitFor();
-    const card = await api<{ card: { sizes: { name: string; lines: { itemName: string; quantity: string; unitLabel: string }[] }[] } }>(page, `/api/drinks/${drinkId}/card`);
+    const card = await getJson<{ card: { sizes: { name: string; lines: { itemName: string; quantity: string; unitLabel: string }[] }[] } }>(page, `/api/drinks/${drinkId}/card`);
     expect(card.card.sizes.map((x) => x.name)).toEqual([small, regular, large]);
     const article = page.locator('article.recipe-card');
     await expect.poll(() => article.getByText('House vanilla syrup').count()).toBe(3);
@@ -178,10 +170,10 @@ test('the owner reads ingredients, a preparation and the pricing settings; figur
   try {
     await s.signIn(page, 'owner@demo.test');
     const locale = await page.evaluate(() => navigator.language);
-    const { currency } = await api<{ currency: string }>(page, '/api/pricing-policy');
+    const { currency } = await getJson<{ currency: string }>(page, '/api/pricing-policy');
 
     // Ingredients: the table's cost per base unit is the server's, to 4 decimals.
-    const { ingredients } = await api<{ ingredients: { id: string; name: string; unitCost: string | null; category: string }[] }>(page, '/api/ingredients');
+    const { ingredients } = await getJson<{ ingredients: { id: string; name: string; unitCost: string | null; category: string }[] }>(page, '/api/ingredients');
     await page.goto(`${s.url}/ingredients`);
     await page.locator('tbody tr').first().waitFor();
     await shot(page, 'ingredients');
@@ -210,7 +202,7 @@ test('the owner reads ingredients, a preparation and the pricing settings; figur
     await shot(page, 'ingredient-new-errors');
 
     // A preparation: the live batch cost equals the saved one.
-    const { preparations } = await api<{ preparations: { id: string; name: string; batchCost: string; unitCost: string }[] }>(page, '/api/preparations');
+    const { preparations } = await getJson<{ preparations: { id: string; name: string; batchCost: string; unitCost: string }[] }>(page, '/api/preparations');
     await page.goto(`${s.url}/preparations`);
     await page.locator('tbody tr').first().waitFor();
     await shot(page, 'preparations');

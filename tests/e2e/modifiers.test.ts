@@ -2,7 +2,7 @@ import { afterAll, beforeAll, expect, test } from 'vitest';
 import type { Page } from 'playwright-core';
 import { formatMoney } from '../../src/lib/format';
 import { dec } from '../../src/shared/decimal';
-import { serveDemo, type Served } from './harness';
+import { serveDemo, type Served, getJson } from './harness';
 
 // Modifiers in a real browser against the seeded demo café: the owner reviews and reprices
 // the oat swap, then adds a new add-on with one line per cup size.
@@ -24,14 +24,6 @@ interface ModifierBody {
   sizes: { sizeId: string; name: string; lines: { itemName: string; action: string }[]; costDelta: string | null; suggestedUpcharge: string | null }[];
 }
 
-async function api<T>(page: Page, url: string): Promise<T> {
-  return page.evaluate(async (u) => {
-    const r = await fetch(u);
-    if (!r.ok) throw new Error(`${u} answered ${r.status}`);
-    return r.json();
-  }, url) as Promise<T>;
-}
-
 /** The editor's saved figures per size equal the server's, as the user's locale writes them. */
 async function expectFigures(page: Page, m: ModifierBody, currency: string, locale: string) {
   for (const size of m.sizes) {
@@ -48,9 +40,9 @@ test('the owner reviews the oat swap per size, changes its upcharge, and adds a 
   try {
     await s.signIn(page, 'owner@demo.test');
     const locale = await page.evaluate(() => navigator.language);
-    const { currency } = await api<{ currency: string }>(page, '/api/pricing-policy');
-    const { sizes } = await api<{ sizes: { id: string; name: string }[] }>(page, '/api/sizes');
-    const { modifiers } = await api<{ modifiers: ModifierBody[] }>(page, '/api/modifiers');
+    const { currency } = await getJson<{ currency: string }>(page, '/api/pricing-policy');
+    const { sizes } = await getJson<{ sizes: { id: string; name: string }[] }>(page, '/api/sizes');
+    const { modifiers } = await getJson<{ modifiers: ModifierBody[] }>(page, '/api/modifiers');
     oat = modifiers.find((m) => m.name === 'Oat drink instead of milk');
     expect(oat, 'the demo seed has the oat swap').toBeDefined();
     expect(oat!.kind).toBe('swap');
@@ -70,7 +62,7 @@ test('the owner reviews the oat swap per size, changes its upcharge, and adds a 
     // The editor: per size what the swap takes out and puts in, and the server's figures.
     await oatRow.getByRole('link', { name: oat!.name }).click();
     await page.getByRole('heading', { name: oat!.name, level: 1 }).waitFor();
-    const detail = (await api<{ modifier: ModifierBody }>(page, `/api/modifiers/${oat!.id}`)).modifier;
+    const detail = (await getJson<{ modifier: ModifierBody }>(page, `/api/modifiers/${oat!.id}`)).modifier;
     expect(detail.sizes.map((x) => x.name)).toEqual(sizes.map((x) => x.name));
     for (const size of detail.sizes) {
       const col = page.locator(`section[data-size="${size.name}"]`);
@@ -88,9 +80,9 @@ test('the owner reviews the oat swap per size, changes its upcharge, and adds a 
     await page.getByLabel('Menu upcharge').fill(low);
     await page.getByRole('button', { name: 'Save modifier' }).first().click();
     await page.getByText(`${oat!.name} saved.`).waitFor();
-    await expect.poll(async () => (await api<{ modifier: ModifierBody }>(page, `/api/modifiers/${oat!.id}`)).modifier.upcharge).toBe(low);
+    await expect.poll(async () => (await getJson<{ modifier: ModifierBody }>(page, `/api/modifiers/${oat!.id}`)).modifier.upcharge).toBe(low);
     await expect.poll(() => page.getByText('below suggested').count()).toBe(detail.sizes.length);
-    const afterSave = (await api<{ modifier: ModifierBody }>(page, `/api/modifiers/${oat!.id}`)).modifier;
+    const afterSave = (await getJson<{ modifier: ModifierBody }>(page, `/api/modifiers/${oat!.id}`)).modifier;
     // The lines came back unchanged: same figures per size.
     expect(afterSave.sizes.map((x) => [x.name, x.costDelta, x.suggestedUpcharge])).toEqual(detail.sizes.map((x) => [x.name, x.costDelta, x.suggestedUpcharge]));
     await expectFigures(page, afterSave, currency, locale);
@@ -123,7 +115,7 @@ test('the owner reviews the oat swap per size, changes its upcharge, and adds a 
     await page.waitForURL((u) => /\/modifiers\/[0-9a-f-]{36}$/.test(u.pathname));
     await page.getByText(`${name} saved.`).waitFor();
     const id = new URL(page.url()).pathname.split('/').pop()!;
-    const created = (await api<{ modifier: ModifierBody }>(page, `/api/modifiers/${id}`)).modifier;
+    const created = (await getJson<{ modifier: ModifierBody }>(page, `/api/modifiers/${id}`)).modifier;
     expect(created.kind).toBe('add');
     expect(created.upcharge).toBe('0.50');
     expect(created.sizes.map((x) => x.name)).toEqual(sizes.map((x) => x.name));

@@ -6,7 +6,7 @@ import { formatMoney } from '../../src/lib/format';
 import { orderTotals, toMinorUnits } from '../../src/shared/ordering';
 import { DEMO } from '../../seeds/01_tenancy';
 import { MENU_IDS } from '../../seeds/02_menu';
-import { serveDemo, type Served } from './harness';
+import { serveDemo, type Served, getJson } from './harness';
 
 // The third journey in a real browser against the seeded demo café: the owner opens the
 // suggested order for the dairy at Market Street, adjusts a quantity, places it (the e-mail
@@ -21,14 +21,6 @@ beforeAll(async () => {
 afterAll(() => s?.close());
 
 const shot = (page: Page, name: string) => s.shot(page, `orders/${name}`);
-
-async function api<T>(page: Page, url: string): Promise<T> {
-  return page.evaluate(async (u) => {
-    const r = await fetch(u);
-    if (!r.ok) throw new Error(`${u} answered ${r.status}`);
-    return r.json();
-  }, url) as Promise<T>;
-}
 
 interface StockItem { packId: string; onHand: string }
 interface OrderLine { id: string; packId: string; description: string; quantity: string; unitPrice: string; taxPct: string; lineTotal: string; quantityReceived: string }
@@ -58,7 +50,7 @@ test('owner orders from the dairy and pays by test card; the manager receives it
 
     // Work at Market Street (the top bar's site switcher).
     await page.getByLabel('Site', { exact: true }).selectOption({ label: 'Market Street' });
-    const before = await api<{ items: StockItem[] }>(page, `/api/sites/${site}/stock`);
+    const before = await getJson<{ items: StockItem[] }>(page, `/api/sites/${site}/stock`);
 
     await page.goto(`${s.url}/stock?supplierId=${dairy}`);
     await page.getByRole('heading', { name: 'Stock and ordering at Market Street', level: 1 }).waitFor();
@@ -68,7 +60,7 @@ test('owner orders from the dairy and pays by test card; the manager receives it
     await shot(page, 'stock');
     await atPhoneWidth(page, 'stock');
 
-    const suggested = await api<{ lines: { packId: string; description: string; quantity: string }[] }>(page, `/api/sites/${site}/suggested-order?supplierId=${dairy}`);
+    const suggested = await getJson<{ lines: { packId: string; description: string; quantity: string }[] }>(page, `/api/sites/${site}/suggested-order?supplierId=${dairy}`);
     // The seed's deliveries left whole milk at its reorder point: it is topped up to par.
     expect(suggested.lines.map((l) => l.packId)).toContain(MENU_IDS.packs.wholeMilk);
 
@@ -81,7 +73,7 @@ test('owner orders from the dairy and pays by test card; the manager receives it
     const milk = suggested.lines.find((l) => l.packId === MENU_IDS.packs.wholeMilk)!;
     const milkQty = new Decimal(milk.quantity).plus(1).toFixed();
     await page.getByLabel(`Packs of ${milk.description}`).fill(milkQty);
-    const { packs } = await api<{ packs: { id: string; description: string; price: string | null; taxPct: string }[] }>(page, `/api/suppliers/${dairy}/catalogue`);
+    const { packs } = await getJson<{ packs: { id: string; description: string; price: string | null; taxPct: string }[] }>(page, `/api/suppliers/${dairy}/catalogue`);
     const extra = packs.find((p) => p.price !== null && !suggested.lines.some((l) => l.packId === p.id))!;
     await page.getByLabel('Find a pack to add').fill(extra.description.split(':')[0]);
     await page.getByRole('button', { name: `Add ${extra.description}` }).click();
@@ -90,7 +82,7 @@ test('owner orders from the dairy and pays by test card; the manager receives it
 
     // The editor's total follows: the catalogue's prices through the same arithmetic (each line
     // and its tax rounded half up, then summed, plus the untaxed delivery charge).
-    const { supplier } = await api<{ supplier: { deliveryCharge: string } }>(page, `/api/suppliers/${dairy}/ordering`);
+    const { supplier } = await getJson<{ supplier: { deliveryCharge: string } }>(page, `/api/suppliers/${dairy}/ordering`);
     const wanted = [...suggested.lines.map((l) => ({ packId: l.packId, quantity: l.packId === milk.packId ? milkQty : l.quantity })), { packId: extra.id, quantity: '2' }];
     const expected = orderTotals(wanted.map((w) => {
       const p = packs.find((x) => x.id === w.packId)!;
@@ -103,7 +95,7 @@ test('owner orders from the dairy and pays by test card; the manager receives it
     await page.getByRole('button', { name: 'Save as draft' }).click();
     await page.waitForURL(/\/orders\/[0-9a-f-]{36}$/);
     const orderId = page.url().split('/').pop()!;
-    let order = await api<Order>(page, `/api/purchase-orders/${orderId}`);
+    let order = await getJson<Order>(page, `/api/purchase-orders/${orderId}`);
     expect(order.status).toBe('draft');
     expect(order.lines.map((l) => [l.packId, l.quantity]).sort()).toEqual(wanted.map((w) => [w.packId, w.quantity]).sort());
     // The order's total is the sum of its lines, their tax and the delivery charge.
@@ -135,7 +127,7 @@ test('owner orders from the dairy and pays by test card; the manager receives it
     await dialog.getByRole('button', { name: `Pay ${money(order.total)}` }).click();
     await page.getByText('Paid by card').first().waitFor();
     await dialog.waitFor({ state: 'hidden' });
-    order = await api<Order>(page, `/api/purchase-orders/${orderId}`);
+    order = await getJson<Order>(page, `/api/purchase-orders/${orderId}`);
     expect(order.status).toBe('paid');
     expect(order.payment?.status).toBe('succeeded');
     expect(order.paymentReference).toMatch(/^pi_/);
@@ -177,13 +169,13 @@ test('owner orders from the dairy and pays by test card; the manager receives it
     expect(await reprice.getAttribute('href')).toBe(`/repricing?packId=${pricedLine.packId}`);
     await shot(page, 'received');
 
-    order = await api<Order>(page, `/api/purchase-orders/${orderId}`);
+    order = await getJson<Order>(page, `/api/purchase-orders/${orderId}`);
     expect(order.status).toBe('part_received');
     expect(order.lines.find((l) => l.id === milkLine.id)!.quantityReceived).toBe(milkReceived);
     expect(order.lines.find((l) => l.id === pricedLine.id)!.quantityReceived).toBe(pricedLine.quantity);
 
     // Stock on hand rose by exactly what arrived.
-    const after = await api<{ items: StockItem[] }>(page, `/api/sites/${site}/stock`);
+    const after = await getJson<{ items: StockItem[] }>(page, `/api/sites/${site}/stock`);
     const onHand = (list: { items: StockItem[] }, id: string) => new Decimal(list.items.find((i) => i.packId === id)!.onHand);
     expect(onHand(after, milkLine.packId).minus(onHand(before, milkLine.packId)).toFixed()).toBe(milkReceived);
     expect(onHand(after, pricedLine.packId).minus(onHand(before, pricedLine.packId)).toFixed()).toBe(pricedLine.quantity);

@@ -5,7 +5,7 @@ import { D } from '../../src/shared/decimal';
 import { DEMO } from '../../seeds/01_tenancy';
 import { MENU_IDS } from '../../seeds/02_menu';
 import type { CogsReport } from '../../src/features/books/api/types';
-import { serveDemo, type Served } from './harness';
+import { serveDemo, type Served, getJson } from './harness';
 
 // The tables' shared behaviour in a real browser against the seeded demo café: sorting by a
 // money column in the order of the real values, filtering, and moving with the arrow keys.
@@ -18,14 +18,6 @@ beforeAll(async () => {
 afterAll(() => s?.close());
 
 const shot = (page: Page, name: string) => s.shot(page, `tables/${name}`);
-
-async function api<T>(page: Page, url: string): Promise<T> {
-  return page.evaluate(async (u) => {
-    const r = await fetch(u);
-    if (!r.ok) throw new Error(`${u} answered ${r.status}`);
-    return r.json();
-  }, url) as Promise<T>;
-}
 
 /** What has the focus: its tag, the row it is in (1 = first body row) and the column (0-based). */
 async function focused(page: Page) {
@@ -59,7 +51,7 @@ test('month end: the cost of goods sorts by actual cost in the order of the real
     const table = page.getByRole('table', { name: 'Cost of goods by ingredient category' });
     await table.locator('tbody tr').first().waitFor();
     await page.waitForLoadState('networkidle');
-    const report = await api<CogsReport>(page, asked.at(-1)!);
+    const report = await getJson<CogsReport>(page, asked.at(-1)!);
     expect(report.rows.length).toBeGreaterThan(2);
     const money = (v: string) => formatMoney(v, report.currency, { locale });
     const actualColumn = async () => table.locator('tbody tr td:nth-child(5)').allInnerTexts();
@@ -120,7 +112,7 @@ test('preparations: sorted by cost per batch with the uncostable last, then sear
     const answer = page.waitForResponse((r) => new URL(r.url()).pathname === '/api/preparations' && r.ok());
     await page.goto(`${s.url}/preparations`);
     const { preparations } = (await (await answer).json()) as { preparations: { name: string; batchCost: string | null }[] };
-    const { currency } = await api<{ currency: string }>(page, '/api/pricing-policy');
+    const { currency } = await getJson<{ currency: string }>(page, '/api/pricing-policy');
     expect(preparations.length).toBeGreaterThanOrEqual(2);
     const table = page.getByRole('table', { name: 'Preparations' });
     await table.locator('tbody tr').first().waitFor();
@@ -171,7 +163,7 @@ test('ArrowDown leaves a select or a text box for the same column of the next ro
     const site = DEMO.siteIds.market;
     let supplierId: string | null = null;
     for (const id of Object.values(MENU_IDS.suppliers)) {
-      const suggested = await api<{ lines: unknown[] }>(page, `/api/sites/${site}/suggested-order?supplierId=${id}`).catch(() => ({ lines: [] }));
+      const suggested = await getJson<{ lines: unknown[] }>(page, `/api/sites/${site}/suggested-order?supplierId=${id}`).catch(() => ({ lines: [] }));
       if (suggested.lines.length >= 2) {
         supplierId = id;
         break;
