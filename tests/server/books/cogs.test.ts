@@ -232,7 +232,8 @@ describe('theoretical cost over several price ranges', () => {
       expect(res.status, JSON.stringify(res.body)).toBe(200);
       return res.body as { rows: { category: string; theoretical: string }[]; totals: Record<string, string>; cups: string; uncostedCups: string; notes: string[] };
     };
-    // Worked out by hand, 10 lattes a range (coffee 18 g, milk 250 ml, a 10 ml pump of the
+    // Theoretical cost = Σ cups sold × the recipe's cost at the prices of the day of sale
+    // (common practice, no source); the figures worked out by hand, 10 lattes a range (coffee 18 g, milk 250 ml, a 10 ml pump of the
     // 2.50 / 1250 ml syrup, one 0.10 cup): coffee 3.60 + 3.60 + 4.32 (18 × 0.024 from the 16th);
     // dairy 3.00 (250 × 0.0012) + 3.75 + 3.75 (250 × 0.0015 from the 8th); other 3 × 0.16;
     // syrup-sauce 3 × 0.04; packaging 3 × 1.00.
