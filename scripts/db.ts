@@ -2,7 +2,7 @@
 //   tsx scripts/db.ts migrate            run pending migrations
 //   tsx scripts/db.ts seed-once          migrate, then seed if the demo has never been loaded
 //   tsx scripts/db.ts reset              migrate, then seed (every seed resets its own tables)
-import { createDb, migrateLatest, runSeeds } from '../server/db/knex';
+import { createDb, migrateLatest, runSeeds } from '../server/platform/db';
 
 const url = process.env.DATABASE_URL;
 if (!url) {

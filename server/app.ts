@@ -6,17 +6,15 @@ import express, { type Router } from 'express';
 import session from 'express-session';
 import helmet from 'helmet';
 import pg from 'pg';
-import type { Knex } from 'knex';
-import type { Config } from './config';
-import { publicConfig } from './config';
-import type { Logger } from './logger';
-import type { Mailer } from './mail/mailer';
+import { publicConfig } from './platform/config';
+import type { AppDeps } from './platform/deps';
 import { configurePassport } from './auth/passport';
 import { createSessionStore } from './auth/session-store';
 import { authRoutes, isCsrfExempt } from './auth/auth.routes';
-import { csrfProtection } from './http/middleware';
-import { errorHandler } from './http/error-handler';
-import { notFound } from './errors';
+import { csrfProtection } from './platform/http/middleware';
+import { refuseHostileInput } from './platform/http/ingress';
+import { errorHandler } from './platform/http/error-handler';
+import { notFound } from './platform/errors';
 import { teamRoutes } from './team/team.routes';
 import { sitesRoutes } from './sites/sites.routes';
 import { costingRouters } from './costing/costing.routes';
@@ -27,12 +25,6 @@ import { paymentsRoutes, paymentsWebhookRoutes } from './payments/payments.route
 import { stockRoutes } from './stock/stock.routes';
 import { repricingRoutes } from './repricing/repricing.routes';
 
-export interface AppDeps {
-  db: Knex;
-  config: Config;
-  mailer: Mailer;
-  logger: Logger;
-}
 
 const distDir = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '../dist');
 
@@ -70,6 +62,7 @@ export function createApp(deps: AppDeps) {
   for (const r of rawBodyRouters(deps)) app.use(r);
 
   app.use(express.json({ limit: '1mb' }));
+  app.use(refuseHostileInput);
 
   const sessionPool = new pg.Pool({ connectionString: config.DATABASE_URL, max: 5 });
   const sessionStore = createSessionStore(sessionPool);

@@ -1,8 +1,8 @@
 import { Router, type Request } from 'express';
-import type { AppDeps } from '../app';
-import { unauthenticated } from '../errors';
-import { csrfTokenFor } from '../http/middleware';
-import { parse } from '../http/validate';
+import type { AppDeps } from '../platform/deps';
+import { unauthenticated } from '../platform/errors';
+import { csrfTokenFor } from '../platform/http/middleware';
+import { parse } from '../platform/http/validate';
 import { acceptInviteSchema, loginSchema, resetCompleteSchema, resetRequestSchema, signupSchema } from './auth.schemas';
 import * as auth from './auth.service';
 import { authenticateLocal, logIn, logOut } from './passport';

@@ -1,7 +1,7 @@
 import type { Knex } from 'knex';
 import type { z } from 'zod';
-import { badRequest, conflict, notFound } from '../errors';
-import type { Mailer } from '../mail/mailer';
+import { badRequest, conflict, notFound } from '../platform/errors';
+import type { Mailer } from '../platform/mailer';
 import { hashPassword, hashToken, newToken } from './passwords';
 import type { signupSchema } from './auth.schemas';
 import { findUserByEmail, toSessionUser, type UserRow } from './users.repo';

@@ -1,5 +1,5 @@
-export const ROLES = ['owner', 'manager', 'barista', 'bookkeeper'] as const;
-export type Role = (typeof ROLES)[number];
+import type { Role } from '../../src/shared/capabilities';
+export { ROLES, type Role } from '../../src/shared/capabilities';
 
 /** The signed-in user as every route sees it. */
 export interface SessionUser {
@@ -24,36 +24,4 @@ declare module 'express-session' {
   }
 }
 
-/**
- * Who may do what. Routes name a capability; the table below is the one place
- * that says which roles have it (the client mirrors it for navigation only).
- */
-export const CAPABILITIES = {
-  'team.manage': ['owner'],
-  'business.manage': ['owner'],
-  'sites.read': ['owner', 'manager', 'barista', 'bookkeeper'],
-  'cards.read': ['owner', 'manager', 'barista', 'bookkeeper'],
-  'costs.read': ['owner', 'manager', 'bookkeeper'],
-  'costs.write': ['owner', 'manager'],
-  'prices.apply': ['owner', 'manager'],
-  'prices.history': ['owner', 'manager', 'bookkeeper'],
-  'orders.read': ['owner', 'manager', 'bookkeeper'],
-  'orders.write': ['owner', 'manager'],
-  'orders.pay': ['owner'],
-  'payments.manage': ['owner'],
-  'stock.read': ['owner', 'manager', 'barista', 'bookkeeper'],
-  'stock.manage': ['owner', 'manager'],
-  'counts.write': ['owner', 'manager', 'barista', 'bookkeeper'],
-  // Issue 6: bookkeeper and owner everything in the books; manager counts, imports and reports; barista counts and waste.
-  'waste.write': ['owner', 'barista', 'bookkeeper'],
-  'sales.import': ['owner', 'manager', 'bookkeeper'],
-  'reports.read': ['owner', 'manager', 'bookkeeper'],
-  'periods.close': ['owner', 'bookkeeper'],
-  'periods.reopen': ['owner'],
-} as const satisfies Record<string, readonly Role[]>;
-
-export type Capability = keyof typeof CAPABILITIES;
-
-export function can(role: Role, capability: Capability): boolean {
-  return (CAPABILITIES[capability] as readonly Role[]).includes(role);
-}
+export { CAPABILITIES, can, type Capability } from '../../src/shared/capabilities';

@@ -1,7 +1,7 @@
 import type { Knex } from 'knex';
 import { ipKeyGenerator, rateLimit, type Options, type Store, type IncrementResponse } from 'express-rate-limit';
 import type { Request } from 'express';
-import { throttled } from '../errors';
+import { throttled } from '../platform/errors';
 
 /** express-rate-limit counters in PostgreSQL (shared by every server process). */
 class PgStore implements Store {

@@ -1,11 +1,11 @@
 import { Router, type NextFunction, type Request, type Response } from 'express';
 import multer from 'multer';
 import { z } from 'zod';
-import type { AppDeps } from '../app';
+import type { AppDeps } from '../platform/deps';
 import { monthString } from '../../src/shared/books';
-import { badRequest, notFound, tooLarge } from '../errors';
-import { allow, uuidParam } from '../http/middleware';
-import { parse } from '../http/validate';
+import { badRequest, notFound, tooLarge } from '../platform/errors';
+import { allow, uuidParam } from '../platform/http/middleware';
+import { parse } from '../platform/http/validate';
 import { closeMonth, reopenMonth } from './close.service';
 import { cogsReport } from './cogs.service';
 import * as counts from './counts.service';

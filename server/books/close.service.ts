@@ -1,6 +1,6 @@
 import type { Knex } from 'knex';
 import { monthBounds, nextDay } from '../../src/shared/books';
-import { conflict } from '../errors';
+import { conflict } from '../platform/errors';
 import { today } from '../costing/shared';
 import { computeCogs } from './cogs.service';
 import { isMonthClosed, listPeriods, lockPeriod, monthLabel, type PeriodOut } from './periods.service';

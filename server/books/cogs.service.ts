@@ -6,8 +6,8 @@ import { chooseCounts, chosenCountsQuery, countValueByCategory, purchasesByCateg
 import { loadMonthCosting } from './month-costing';
 import { ensureRecipeCosts, type KnownCostingState } from './recipe-costs.service';
 import { valueWaste, type WasteValue } from './waste.service';
-import { cacheFor } from '../costing/versions';
-import { notFound } from '../errors';
+import { cacheFor } from '../platform/versions';
+import { notFound } from '../platform/errors';
 
 export interface CountRef {
   siteId: string;

@@ -4,8 +4,10 @@ import { D, dec } from '../../src/shared/decimal';
 import { writeMoney } from '../../src/shared/money';
 import { rules } from '../../src/shared/checks';
 import { conversionFactor, UNIT_CODES, UnitConversionError, type BaseUnit } from '../../src/shared/units';
-import { decimalString, isoDate, qty } from '../costing/shared';
-import { badRequest, conflict, invalidInput, notFound } from '../errors';
+import { decimalString } from '../costing/shared';
+import { isoDate } from '../../src/shared/schemas/fields';
+import { qty } from '../platform/present';
+import { badRequest, conflict, invalidInput, notFound } from '../platform/errors';
 import { assertMonthOpen } from './periods.service';
 import { assertSite } from './sites';
 

@@ -2,7 +2,7 @@ import type { Knex } from 'knex';
 import { addMonths, monthBounds } from '../../src/shared/books';
 import { D, dec } from '../../src/shared/decimal';
 import { writeMoney, writeQuantity } from '../../src/shared/money';
-import { notFound } from '../errors';
+import { notFound } from '../platform/errors';
 import { cogsReport, type CogsReport } from './cogs.service';
 import { purchasesBySupplier } from './cogs.repo';
 import { pages, slug, type CsvColumn, type CsvRecord } from './csv';

@@ -3,7 +3,7 @@ import { D, type Dec } from '../../src/shared/decimal';
 import { monthBounds, nextDay } from '../../src/shared/books';
 import { loadCostModel, type LoadedCostModel } from '../costing/cost-model.service';
 import type { LineRow } from '../costing/cost-model.repo';
-import { cacheFor, costingVersion } from '../costing/versions';
+import { cacheFor, costingVersion } from '../platform/versions';
 
 /**
  * Costing over a month: the days on which the prices in force change split the month into a

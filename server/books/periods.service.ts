@@ -1,6 +1,6 @@
 import type { Knex } from 'knex';
 import { monthOf } from '../../src/shared/books';
-import { conflict } from '../errors';
+import { conflict } from '../platform/errors';
 
 /** "September 2026" for a month (YYYY-MM). */
 export function monthLabel(month: string): string {

@@ -2,8 +2,8 @@ import type { Knex } from 'knex';
 import { monthBounds } from '../../src/shared/books';
 import { INGREDIENT_CATEGORIES } from '../../src/shared/categories';
 import type { BuildLineRow } from '../costing/cost-model.repo';
-import { groupBy } from '../costing/shared';
-import { costingVersion } from '../costing/versions';
+import { groupBy } from '../../src/shared/collections';
+import { costingVersion } from '../platform/versions';
 import { CategorySplitter, loadMonthCosting } from './month-costing';
 
 /**

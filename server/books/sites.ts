@@ -1,5 +1,5 @@
 import type { Knex } from 'knex';
-import { notFound } from '../errors';
+import { notFound } from '../platform/errors';
 
 /** 404 unless the site is this business's (another business's ids are simply not found). */
 export async function assertSite(db: Knex, businessId: string, siteId: string): Promise<{ id: string; name: string }> {

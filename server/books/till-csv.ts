@@ -3,7 +3,7 @@ import { fileTypeFromBuffer } from 'file-type';
 import { distance } from 'fastest-levenshtein';
 import { z } from 'zod';
 import { isDecimalString } from '../../src/shared/decimal';
-import { badRequest } from '../errors';
+import { badRequest } from '../platform/errors';
 
 /** Reading a till's CSV export: its type by content, its columns, and its rows with line numbers. */
 

@@ -6,7 +6,8 @@ import { minorUnitStep } from '../../src/shared/money';
 import type { PricingPolicy } from '../../src/shared/pricing';
 import type { BaseUnit } from '../../src/shared/units';
 import { loadCostRows, type CostRows, type IngredientRow, type LineRow, type MeasureRow, type PackPriceRow, type PolicyRow, type PreparationLineRow, type PreparationRow } from './cost-model.repo';
-import { groupBy, today, yieldBaseUnit } from './shared';
+import { today, yieldBaseUnit } from './shared';
+import { groupBy } from '../../src/shared/collections';
 
 export interface CostModelOptions {
   /** Prices in force on this date (YYYY-MM-DD); default today (UTC). */

@@ -1,5 +1,5 @@
 import type { Router } from 'express';
-import type { AppDeps } from '../app';
+import type { AppDeps } from '../platform/deps';
 import { drinksRoutes } from './drinks.routes';
 import { ingredientsRoutes } from './ingredients.routes';
 import { menuRoutes } from './menu.routes';

@@ -1,7 +1,7 @@
 import { Router } from 'express';
-import type { AppDeps } from '../app';
-import { allow, uuidParam } from '../http/middleware';
-import { parse } from '../http/validate';
+import type { AppDeps } from '../platform/deps';
+import { allow, uuidParam } from '../platform/http/middleware';
+import { parse } from '../platform/http/validate';
 import * as drinks from './drinks.service';
 
 export function drinksRoutes(deps: AppDeps) {

@@ -3,11 +3,14 @@ import { z } from 'zod';
 import { rules } from '../../src/shared/checks';
 import { dec } from '../../src/shared/decimal';
 import { writeMoney } from '../../src/shared/money';
-import { invalidInput, notFound } from '../errors';
+import { invalidInput, notFound } from '../platform/errors';
 import { foldDuePrices } from '../repricing/schedule.repo';
 import { loadMenuRows } from './cost-model.repo';
 import { checkLines, lineColumns, lineInSchema, presentLine, throwIfFields } from './lines';
-import { decimalString, groupBy, guardWrite, name, optionalText, qty, today } from './shared';
+import { decimalString, name, optionalText, today } from './shared';
+import { groupBy } from '../../src/shared/collections';
+import { guardWrite } from '../platform/db-errors';
+import { qty } from '../platform/present';
 
 export const drinkInSchema = z.object({
   name: name('drink'),

@@ -7,9 +7,12 @@ import { costLines } from '../../src/shared/costing';
 import { dec } from '../../src/shared/decimal';
 import { writeCost } from '../../src/shared/money';
 import { BASE_UNITS, conversionFactor, UNIT_CODES, UnitConversionError, type BaseUnit } from '../../src/shared/units';
-import { invalidInput, notFound } from '../errors';
+import { invalidInput, notFound } from '../platform/errors';
 import { loadCostModel, type CostedIngredient, type LoadedCostModel } from './cost-model.service';
-import { decimalString, guardWrite, isoDate, money, name, optionalText, qty, today } from './shared';
+import { decimalString, name, optionalText, today } from './shared';
+import { guardWrite } from '../platform/db-errors';
+import { isoDate } from '../../src/shared/schemas/fields';
+import { money, qty } from '../platform/present';
 
 export const CATEGORIES = INGREDIENT_CATEGORIES;
 const unitCode = z.enum(UNIT_CODES, { error: (issue) => `Unknown unit "${String(issue.input)}".` });

@@ -4,9 +4,10 @@ import { rules } from '../../src/shared/checks';
 import { decimalString } from '../../src/shared/schemas/costing';
 import { dec } from '../../src/shared/decimal';
 import { conversionFactor, UNIT_CODES, UnitConversionError, type BaseUnit } from '../../src/shared/units';
-import { invalidInput } from '../errors';
+import { invalidInput } from '../platform/errors';
 import type { LineRow } from './cost-model.repo';
-import { qty, yieldBaseUnit } from './shared';
+import { yieldBaseUnit } from './shared';
+import { qty } from '../platform/present';
 
 /** A line as the API takes it: one item (ingredient or preparation), a quantity, and a unit or a measure. */
 export const lineInSchema = z

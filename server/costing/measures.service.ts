@@ -2,9 +2,11 @@ import type { Knex } from 'knex';
 import type { z } from 'zod';
 import { dec } from '../../src/shared/decimal';
 import { conversionFactor, UnitConversionError, type BaseUnit } from '../../src/shared/units';
-import { invalidInput, notFound } from '../errors';
+import { invalidInput, notFound } from '../platform/errors';
 import type { measureInSchema } from './ingredients.service';
-import { guardWrite, qty, yieldBaseUnit } from './shared';
+import { yieldBaseUnit } from './shared';
+import { guardWrite } from '../platform/db-errors';
+import { qty } from '../platform/present';
 
 type MeasureIn = z.output<typeof measureInSchema>;
 const COLS = ['id', 'ingredient_id', 'preparation_id', 'name', 'quantity', 'unit'];

@@ -1,9 +1,9 @@
 import { Router } from 'express';
-import type { AppDeps } from '../app';
-import { allow, uuidParam } from '../http/middleware';
-import { parse } from '../http/validate';
+import type { AppDeps } from '../platform/deps';
+import { allow, uuidParam } from '../platform/http/middleware';
+import { parse } from '../platform/http/validate';
 import { drinkCard, drinkCosting, listCards, menuCosting } from './menu.service';
-import { asOfQuery } from './shared';
+import { asOfQuery } from '../../src/shared/schemas/fields';
 
 export function menuRoutes(deps: AppDeps) {
   const { db } = deps;

@@ -5,11 +5,12 @@ import { dec } from '../../src/shared/decimal';
 import { writeCost, writeMoney, writePercent } from '../../src/shared/money';
 import { exactMarginPct, parsePolicy, priceFigures, suggestPrice, type ParsedPolicy } from '../../src/shared/pricing';
 import { UNITS, isUnitCode } from '../../src/shared/units';
-import { notFound } from '../errors';
+import { notFound } from '../platform/errors';
 import { loadMenuRows, type BuildLineRow, type DrinkSizeRow, type MenuRows } from './cost-model.repo';
 import { loadCostModel, type CostModelOptions, type LoadedCostModel } from './cost-model.service';
-import { groupBy, today } from './shared';
-import { cacheFor, costingVersion } from './versions';
+import { today } from './shared';
+import { groupBy } from '../../src/shared/collections';
+import { cacheFor, costingVersion } from '../platform/versions';
 
 
 /** The preview's figures for one saved cup size: cost, lines, suggested price, figures at both prices. */

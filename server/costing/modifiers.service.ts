@@ -3,11 +3,13 @@ import { z } from 'zod';
 import { rules } from '../../src/shared/checks';
 import { writeCost, writeMoney } from '../../src/shared/money';
 import { suggestUpcharge } from '../../src/shared/pricing';
-import { notFound } from '../errors';
+import { notFound } from '../platform/errors';
 import type { LineRow } from './cost-model.repo';
 import { loadCostModel, type LoadedCostModel } from './cost-model.service';
 import { checkLines, lineColumns, lineInSchema, presentLine, throwIfFields } from './lines';
-import { decimalString, groupBy, guardWrite, name } from './shared';
+import { decimalString, name } from './shared';
+import { groupBy } from '../../src/shared/collections';
+import { guardWrite } from '../platform/db-errors';
 
 export const modifierInSchema = z.object({
   name: name('modifier'),

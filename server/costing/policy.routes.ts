@@ -4,10 +4,10 @@ import { z } from 'zod';
 import { pricingPolicySchema } from '../../src/shared/schemas/costing';
 import { readPolicy } from '../../src/shared/pricing';
 import { FieldErrors } from '../../src/shared/errors';
-import type { AppDeps } from '../app';
-import { invalidInput } from '../errors';
-import { allow } from '../http/middleware';
-import { parse } from '../http/validate';
+import type { AppDeps } from '../platform/deps';
+import { invalidInput } from '../platform/errors';
+import { allow } from '../platform/http/middleware';
+import { parse } from '../platform/http/validate';
 import { findBusinessMoney, listPolicies } from './cost-model.repo';
 import { defaultPolicy, policyFromRow } from './cost-model.service';
 

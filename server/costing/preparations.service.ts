@@ -5,11 +5,13 @@ import { rules } from '../../src/shared/checks';
 import { writeLineCost } from '../../src/shared/costing';
 import { writeCost } from '../../src/shared/money';
 import { UNIT_CODES } from '../../src/shared/units';
-import { invalidInput, notFound } from '../errors';
+import { invalidInput, notFound } from '../platform/errors';
 import { loadCostModel, type CostedPreparation, type LoadedCostModel } from './cost-model.service';
 import { measureInSchema } from './ingredients.service';
 import { checkLines, lineColumns, lineInSchema, presentLine, throwIfFields, type LineIn } from './lines';
-import { decimalString, guardWrite, name, optionalText, qty } from './shared';
+import { decimalString, name, optionalText } from './shared';
+import { guardWrite } from '../platform/db-errors';
+import { qty } from '../platform/present';
 
 export const preparationInSchema = z.object({
   name: name('preparation'),

@@ -1,10 +1,10 @@
 import { Router } from 'express';
 import { costPreview, CostingInputError } from '../../src/shared/costing';
 import { costPreviewRequestSchema } from '../../src/shared/schemas/costing';
-import type { AppDeps } from '../app';
-import { invalidInput } from '../errors';
-import { allow } from '../http/middleware';
-import { parse } from '../http/validate';
+import type { AppDeps } from '../platform/deps';
+import { invalidInput } from '../platform/errors';
+import { allow } from '../platform/http/middleware';
+import { parse } from '../platform/http/validate';
 
 export function previewRoutes(_deps: AppDeps) {
   const r = Router();

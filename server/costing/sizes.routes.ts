@@ -1,11 +1,13 @@
 import { Router } from 'express';
 import { z } from 'zod';
 import { rules } from '../../src/shared/checks';
-import type { AppDeps } from '../app';
-import { notFound } from '../errors';
-import { allow, uuidParam } from '../http/middleware';
-import { parse } from '../http/validate';
-import { decimalString, guardWrite, name, qty } from './shared';
+import type { AppDeps } from '../platform/deps';
+import { notFound } from '../platform/errors';
+import { allow, uuidParam } from '../platform/http/middleware';
+import { parse } from '../platform/http/validate';
+import { decimalString, name } from './shared';
+import { guardWrite } from '../platform/db-errors';
+import { qty } from '../platform/present';
 
 const sizeSchema = z.object({ name: name('cup size'), volumeMl: decimalString(rules.positive), position: z.number().int().min(0).max(1000).optional() });
 const COLS = ['id', 'name', 'volume_ml', 'position'];

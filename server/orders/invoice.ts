@@ -3,9 +3,9 @@ import fs from 'node:fs/promises';
 import path from 'node:path';
 import type { NextFunction, Request, Response } from 'express';
 import multer from 'multer';
-import type { AppDeps } from '../app';
+import type { AppDeps } from '../platform/deps';
 import type { SessionUser } from '../auth/roles';
-import { badRequest, conflict, notFound, tooLarge } from '../errors';
+import { badRequest, conflict, notFound, tooLarge } from '../platform/errors';
 import { addEvent, findOrder } from './orders.repo';
 
 /** The kinds of invoice we keep, told apart by the file's first bytes, never by its name. */

@@ -1,9 +1,9 @@
 import { Router } from 'express';
 import { z } from 'zod';
-import type { AppDeps } from '../app';
-import { notFound } from '../errors';
-import { allow, uuidParam } from '../http/middleware';
-import { parse } from '../http/validate';
+import type { AppDeps } from '../platform/deps';
+import { notFound } from '../platform/errors';
+import { allow, uuidParam } from '../platform/http/middleware';
+import { parse } from '../platform/http/validate';
 import { writeMoney, writeQuantity } from '../../src/shared/money';
 import { editOrderSchema, newOrderSchema, receiveSchema, supplierOrderingSchema } from '../../src/shared/ordering';
 import { businessOf, packsForOrder, supplierTerms } from './orders.repo';

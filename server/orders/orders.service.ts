@@ -1,7 +1,7 @@
 import type { Knex } from 'knex';
-import type { AppDeps } from '../app';
+import type { AppDeps } from '../platform/deps';
 import { can, type SessionUser } from '../auth/roles';
-import { badGateway, conflict, forbidden, invalidInput, notFound } from '../errors';
+import { badGateway, conflict, forbidden, invalidInput, notFound } from '../platform/errors';
 import { D, dec } from '../../src/shared/decimal';
 import { currencyMinorUnits, writeMoney, writeQuantity } from '../../src/shared/money';
 import { minimumShortfall, nextDeliveryDate, orderTotals } from '../../src/shared/ordering';

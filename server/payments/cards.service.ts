@@ -1,7 +1,7 @@
 import Stripe from 'stripe';
-import type { AppDeps } from '../app';
+import type { AppDeps } from '../platform/deps';
 import type { SessionUser } from '../auth/roles';
-import { badGateway, badRequest, invalidInput } from '../errors';
+import { badGateway, badRequest, invalidInput } from '../platform/errors';
 import { forgetCard, savedCard, upsertSavedCard } from './payments.repo';
 import { TEST_CARDS } from './payments.service';
 import { outcomeUnknown, paymentsClient } from './stripe-client';

@@ -1,9 +1,9 @@
 import express, { Router } from 'express';
 import type Stripe from 'stripe';
-import type { AppDeps } from '../app';
-import { badRequest } from '../errors';
-import { allow, uuidParam } from '../http/middleware';
-import { parse } from '../http/validate';
+import type { AppDeps } from '../platform/deps';
+import { badRequest } from '../platform/errors';
+import { allow, uuidParam } from '../platform/http/middleware';
+import { parse } from '../platform/http/validate';
 import { payOrderSchema } from '../../src/shared/ordering';
 import { presentOrder } from '../orders/orders.service';
 import { presentCard, removeCard, saveCard } from './cards.service';

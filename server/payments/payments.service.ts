@@ -1,8 +1,8 @@
 import type { Knex } from 'knex';
 import Stripe from 'stripe';
-import type { AppDeps } from '../app';
+import type { AppDeps } from '../platform/deps';
 import type { SessionUser } from '../auth/roles';
-import { AppError, badGateway, conflict, invalidInput, notFound, paymentFailed } from '../errors';
+import { AppError, badGateway, conflict, invalidInput, notFound, paymentFailed } from '../platform/errors';
 import { toMinorUnits } from '../../src/shared/ordering';
 import { writeMoney } from '../../src/shared/money';
 import { addEvent, findOrder, type OrderRow } from '../orders/orders.repo';

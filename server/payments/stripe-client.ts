@@ -1,5 +1,5 @@
 import Stripe from 'stripe';
-import type { Config } from '../config';
+import type { Config } from '../platform/config';
 
 const clients = new WeakMap<Config, Stripe>();
 

@@ -3,7 +3,7 @@ import { dec, type Dec } from '../../src/shared/decimal';
 import { currencyMinorUnits, writeMoney } from '../../src/shared/money';
 import type { ApplyInput } from '../../src/shared/schemas/repricing';
 import { today } from '../costing/shared';
-import { conflict, invalidInput, notFound } from '../errors';
+import { conflict, invalidInput, notFound } from '../platform/errors';
 import { keepLadder } from './ladder';
 import { businessName, findScenario, lockDrinkSizes, type LockedDrinkSize } from './repricing.repo';
 import { foldDuePrices, pricesBefore, samePrice, supersedePlanned } from './schedule.repo';

@@ -5,8 +5,9 @@ import { exactPriceFigures, parsePolicy, roundPrice, grossForTargetMargin, type 
 import type { PreviewInput } from '../../src/shared/schemas/repricing';
 import { loadCostRows, loadMenuRows, type BuildLineRow, type DrinkSizeRow, type LineRow } from '../costing/cost-model.repo';
 import { buildLoadedCostModel, type LoadedCostModel } from '../costing/cost-model.service';
-import { groupBy, today } from '../costing/shared';
-import { invalidInput } from '../errors';
+import { today } from '../costing/shared';
+import { groupBy } from '../../src/shared/collections';
+import { invalidInput } from '../platform/errors';
 import { keepLadder } from './ladder';
 import { cupsSold, expectedWeeklyCups, listModifierLines, type ModifierLineRow } from './repricing.repo';
 

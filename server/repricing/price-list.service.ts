@@ -5,8 +5,10 @@ import { dec } from '../../src/shared/decimal';
 import { writeMoney } from '../../src/shared/money';
 import { loadMenuRows } from '../costing/cost-model.repo';
 import { loadCostModel } from '../costing/cost-model.service';
-import { groupBy, money, today } from '../costing/shared';
-import { notFound } from '../errors';
+import { today } from '../costing/shared';
+import { groupBy } from '../../src/shared/collections';
+import { money } from '../platform/present';
+import { notFound } from '../platform/errors';
 import { businessName, listModifierLines, menuPricesEffectiveFrom, plannedPackPrices, priceHistory, type PriceHistoryRow } from './repricing.repo';
 import { nextPlannedDate } from './schedule.repo';
 

@@ -1,13 +1,14 @@
 import { Router } from 'express';
-import type { AppDeps } from '../app';
-import { allow, uuidParam } from '../http/middleware';
-import { parse } from '../http/validate';
+import type { AppDeps } from '../platform/deps';
+import { allow, uuidParam } from '../platform/http/middleware';
+import { parse } from '../platform/http/validate';
 import { applySchema, compareQuerySchema, previewSchema, scenarioSchema } from '../../src/shared/schemas/repricing';
 import { applyPrices } from './apply.service';
 import { previewImpact } from './impact.service';
 import { drinkPriceHistory, plannedChanges, priceList, priceListCsv } from './price-list.service';
 import { cancelScheduled, scheduledPrices } from './scheduled.service';
-import { isoDate, today } from '../costing/shared';
+import { today } from '../costing/shared';
+import { isoDate } from '../../src/shared/schemas/fields';
 import { z } from 'zod';
 
 const dateQuery = z.object({ date: isoDate.optional() });

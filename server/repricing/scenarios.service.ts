@@ -1,7 +1,7 @@
 import type { Knex } from 'knex';
 import type { ScenarioInput } from '../../src/shared/schemas/repricing';
-import { guardWrite } from '../costing/shared';
-import { conflict, notFound } from '../errors';
+import { guardWrite } from '../platform/db-errors';
+import { conflict, notFound } from '../platform/errors';
 import { previewImpact, type Impact } from './impact.service';
 import { findScenario, findScenarios, listScenarios, type ScenarioRow } from './repricing.repo';
 

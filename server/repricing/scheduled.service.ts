@@ -1,7 +1,8 @@
 import type { Knex } from 'knex';
 import { loadMenuRows } from '../costing/cost-model.repo';
-import { money, today } from '../costing/shared';
-import { conflict, notFound } from '../errors';
+import { today } from '../costing/shared';
+import { money } from '../platform/present';
+import { conflict, notFound } from '../platform/errors';
 import { presentPriceChange } from './price-list.service';
 import { businessName } from './repricing.repo';
 import { listScheduled, type ScheduledRow } from './schedule.repo';

@@ -1,8 +1,8 @@
 import { Router } from 'express';
 import { z } from 'zod';
-import type { AppDeps } from '../app';
-import { allow, uuidParam } from '../http/middleware';
-import { parse } from '../http/validate';
+import type { AppDeps } from '../platform/deps';
+import { allow, uuidParam } from '../platform/http/middleware';
+import { parse } from '../platform/http/validate';
 import { stockLevelSchema } from '../../src/shared/ordering';
 import { packStorageAreaSchema, storageAreaInSchema, storageAreaOrderSchema, storageAreaPatchSchema } from '../../src/shared/schemas/stock';
 import { presentStock, setLevel, suggestedOrder } from './stock.service';

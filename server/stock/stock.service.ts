@@ -5,8 +5,8 @@ import { minimumShortfall, nextDeliveryDate, orderTotals, suggestedPacks } from 
 import { UnitConversionError } from '../../src/shared/units';
 import { addUsage, usageOfCounts, UsageExploder, type Usage } from '../../src/shared/usage';
 import { loadCostModel } from '../costing/cost-model.service';
-import { groupBy } from '../costing/shared';
-import { invalidInput, notFound } from '../errors';
+import { groupBy } from '../../src/shared/collections';
+import { invalidInput, notFound } from '../platform/errors';
 import { businessOf, packsForOrder, siteOfBusiness, supplierTerms } from '../orders/orders.repo';
 import { localNow } from '../orders/orders.service';
 import { buildsOf, countedPacks, lastCount, receivedSince, salesByDrinkSizeSince, stockItems, upsertStockItem, wasteSince, type StockItemRow } from './stock.repo';

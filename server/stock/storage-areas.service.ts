@@ -1,7 +1,7 @@
 import type { Knex } from 'knex';
 import type { z } from 'zod';
 import type { packStorageAreaSchema, storageAreaInSchema, storageAreaPatchSchema } from '../../src/shared/schemas/stock';
-import { AppError, invalidInput, notFound } from '../errors';
+import { AppError, invalidInput, notFound } from '../platform/errors';
 import { areaNamed, areasOfSite, findArea, lockAreaIds, nextPosition, type StorageAreaRow } from './storage-areas.repo';
 
 const presentArea = (a: StorageAreaRow) => ({ id: a.id, name: a.name, position: a.position, packCount: a.pack_count });

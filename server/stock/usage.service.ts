@@ -3,7 +3,7 @@ import { conversionFactor, UnitConversionError } from '../../src/shared/units';
 import type { UsageItem, UsageLine } from '../../src/shared/usage';
 import type { LoadedCostModel } from '../costing/cost-model.service';
 import type { LineRow, MeasureRow } from '../costing/cost-model.repo';
-import { groupBy } from '../costing/shared';
+import { groupBy } from '../../src/shared/collections';
 
 /** A stored line (build or preparation line) as the usage explosion reads it: unit = unit code or measure id. */
 export function usageLine(l: LineRow): UsageLine {

@@ -1,8 +1,8 @@
 import { Router } from 'express';
-import type { AppDeps } from '../app';
+import type { AppDeps } from '../platform/deps';
 import { inviteSchema, roleChangeSchema } from '../auth/auth.schemas';
-import { allow, uuidParam } from '../http/middleware';
-import { parse } from '../http/validate';
+import { allow, uuidParam } from '../platform/http/middleware';
+import { parse } from '../platform/http/validate';
 import { listMembers, listOpenInvitations } from './team.repo';
 import * as team from './team.service';
 

@@ -1,6 +1,6 @@
 import type { Knex } from 'knex';
-import type { Mailer } from '../mail/mailer';
-import { conflict, notFound } from '../errors';
+import type { Mailer } from '../platform/mailer';
+import { conflict, notFound } from '../platform/errors';
 import { newToken } from '../auth/passwords';
 import { INVITE_DAYS } from '../auth/auth.service';
 import type { Role, SessionUser } from '../auth/roles';

@@ -5,10 +5,11 @@ import type { Server } from 'node:http';
 import { inject } from 'vitest';
 import { chromium, type BrowserContext, type Page } from 'playwright-core';
 import { createApp } from '../../server/app';
-import { loadConfig, type Config } from '../../server/config';
-import { createDb } from '../../server/db/knex';
-import { createLogger } from '../../server/logger';
-import { createMailer } from '../../server/mail/mailer';
+import { systemClock } from '../../server/platform/clock';
+import { loadConfig, type Config } from '../../server/platform/config';
+import { createDb } from '../../server/platform/db';
+import { createLogger } from '../../server/platform/logger';
+import { createMailer } from '../../server/platform/mailer';
 import { startMailFake, type MailFake } from '../../fakes/mail/server';
 import { startPaymentsFake, type PaymentsFake } from '../../fakes/payments/server';
 import type { Knex } from 'knex';
@@ -58,7 +59,7 @@ export async function serveDemo(): Promise<Served> {
     STRIPE_WEBHOOK_SECRET: webhookSecret,
   });
   const mailer = createMailer({ host: '127.0.0.1', port: mail.smtpPort, from: config.MAIL_FROM });
-  const app = createApp({ db, config, mailer, logger: createLogger('silent') });
+  const app = createApp({ db, config, mailer, logger: createLogger('silent'), clock: systemClock });
   const server = await new Promise<Server>((resolve) => {
     const s = app.listen(port, '127.0.0.1', () => resolve(s));
   });

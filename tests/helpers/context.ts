@@ -2,10 +2,11 @@ import { inject } from 'vitest';
 import type { Express } from 'express';
 import type { Knex } from 'knex';
 import { createApp } from '../../server/app';
-import { loadConfig, type Config } from '../../server/config';
-import { createDb } from '../../server/db/knex';
-import { createLogger } from '../../server/logger';
-import { createMailer } from '../../server/mail/mailer';
+import { systemClock } from '../../server/platform/clock';
+import { loadConfig, type Config } from '../../server/platform/config';
+import { createDb } from '../../server/platform/db';
+import { createLogger } from '../../server/platform/logger';
+import { createMailer } from '../../server/platform/mailer';
 import { startMailFake, type MailFake } from '../../fakes/mail/server';
 
 export interface TestContext {
@@ -17,8 +18,7 @@ export interface TestContext {
 }
 
 /** A real app on the throwaway database with its own fake mailbox on a free port. */
-export async function startTestApp(env: Record<string, string> = {}): Promise<TestContext> {
-  const databaseUrl = inject('databaseUrl');
+export async function startTestApp(env: Record<string, string> = {}, databaseUrl = inject('databaseUrl')): Promise<TestContext> {
   const db = createDb(databaseUrl);
   const mail = await startMailFake({ smtpPort: 0, httpPort: 0 });
   const config = loadConfig({
@@ -32,7 +32,7 @@ export async function startTestApp(env: Record<string, string> = {}): Promise<Te
     ...env,
   });
   const mailer = createMailer({ host: '127.0.0.1', port: mail.smtpPort, from: config.MAIL_FROM });
-  const app = createApp({ db, config, mailer, logger: createLogger('silent') });
+  const app = createApp({ db, config, mailer, logger: createLogger('silent'), clock: systemClock });
   return {
     db,
     app,

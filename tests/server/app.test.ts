@@ -1,10 +1,11 @@
 import { expect, test } from 'vitest';
 import request from 'supertest';
 import { createApp } from '../../server/app';
-import { loadConfig, ConfigError } from '../../server/config';
-import { createDb } from '../../server/db/knex';
-import { createLogger } from '../../server/logger';
-import { createMailer } from '../../server/mail/mailer';
+import { systemClock } from '../../server/platform/clock';
+import { loadConfig, ConfigError } from '../../server/platform/config';
+import { createDb } from '../../server/platform/db';
+import { createLogger } from '../../server/platform/logger';
+import { createMailer } from '../../server/platform/mailer';
 import { freePort } from '../../scripts/lib/postgres.mjs';
 import { startTestApp } from '../helpers/context';
 
@@ -13,7 +14,7 @@ test('health answers 503 with db "down" when the database is unreachable', async
   const url = `postgres://app@127.0.0.1:${await freePort()}/nothing`;
   const config = loadConfig({ NODE_ENV: 'test', DATABASE_URL: url, LOG_LEVEL: 'silent' });
   const db = createDb(url);
-  const app = createApp({ db, config, mailer: createMailer({ host: '127.0.0.1', port: 1, from: 'x@y.test' }), logger: createLogger('silent') });
+  const app = createApp({ db, config, mailer: createMailer({ host: '127.0.0.1', port: 1, from: 'x@y.test' }), logger: createLogger('silent'), clock: systemClock });
   try {
     const res = await request(app).get('/api/health');
     expect(res.status).toBe(503);

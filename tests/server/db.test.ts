@@ -1,5 +1,5 @@
 import { inject, test, expect } from 'vitest';
-import { createDb } from '../../server/db/knex';
+import { createDb } from '../../server/platform/db';
 
 test('the throwaway database is migrated', async () => {
   const db = createDb(inject('databaseUrl'));

@@ -1,12 +1,14 @@
 import type { TestProject } from 'vitest/node';
 import { startThrowawayCluster } from '../../scripts/lib/postgres.mjs';
-import { createDb, migrateLatest, runSeeds } from '../../server/db/knex';
+import { createDb, migrateLatest, runSeeds } from '../../server/platform/db';
 
 declare module 'vitest' {
   export interface ProvidedContext {
     databaseUrl: string;
     /** A second database holding the demo seed, for the browser journeys. */
     e2eDatabaseUrl: string;
+    /** A database of its own for the hostile-input walk, which checks that nothing at all changed. */
+    hostileDatabaseUrl: string;
   }
 }
 
@@ -25,6 +27,12 @@ export default async function setup(project: TestProject) {
     await migrateLatest(db);
     await db.destroy();
     project.provide('databaseUrl', url);
+    cluster.createDatabase('tamp_hostile');
+    const hostileUrl = cluster.urlFor('tamp_hostile');
+    const hostile = createDb(hostileUrl);
+    await migrateLatest(hostile);
+    await hostile.destroy();
+    project.provide('hostileDatabaseUrl', hostileUrl);
     cluster.createDatabase('tamp_e2e');
     const e2eUrl = cluster.urlFor('tamp_e2e');
     const e2e = createDb(e2eUrl);

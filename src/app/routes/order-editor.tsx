@@ -12,7 +12,8 @@ import { useMe } from '../../features/auth/api/get-me';
 import { useOrder } from '../../features/orders/api/get-order';
 import { useSuggestedOrder } from '../../features/orders/api/get-suggested-order';
 import { OrderEditor, type EditorTarget } from '../../features/orders/components/order-editor';
-import { useSuppliers } from '../../features/suppliers/api/get-suppliers';
+import { useContractQuery } from '../../lib/contract';
+import { listSuppliers } from '../../shared/contract/suppliers';
 import { useWorkSite } from './work-site';
 
 function Shell({ title, children }: { title: string; children: React.ReactNode }) {
@@ -33,7 +34,7 @@ export function OrderEditorRoute() {
 
 function EditDraft({ orderId }: { orderId: string }) {
   const order = useOrder(orderId);
-  const suppliers = useSuppliers();
+  const suppliers = useContractQuery(listSuppliers);
   const o = order.data;
   if (order.isError) return <Shell title="Edit the order"><ErrorState error={order.error} onRetry={() => order.refetch()} /></Shell>;
   if (!o || suppliers.isPending) return <Shell title="Edit the order"><SkeletonRows rows={5} label="Loading the order" /></Shell>;
@@ -57,7 +58,7 @@ function EditDraft({ orderId }: { orderId: string }) {
 function NewDraft() {
   const me = useMe();
   const work = useWorkSite();
-  const suppliers = useSuppliers();
+  const suppliers = useContractQuery(listSuppliers);
   const [params, setParams] = useSearchParams();
   const selectId = useId();
   const site = work.sites.find((s) => s.id === params.get('siteId')) ?? work.site;

@@ -14,7 +14,8 @@ import { useStock } from '../../features/stock/api/get-stock';
 import { useStorageAreas } from '../../features/stock/api/get-storage-areas';
 import { StockTable } from '../../features/stock/components/stock-table';
 import { StorageAreas } from '../../features/stock/components/storage-areas';
-import { useSuppliers } from '../../features/suppliers/api/get-suppliers';
+import { useContractQuery } from '../../lib/contract';
+import { listSuppliers } from '../../shared/contract/suppliers';
 import { useWorkSite } from './work-site';
 
 /** Stock at the chosen site, its par levels, and what to order from each supplier. */
@@ -23,7 +24,7 @@ export function StockRoute() {
   const work = useWorkSite();
   const site = work.site;
   const stock = useStock(site?.id);
-  const suppliers = useSuppliers();
+  const suppliers = useContractQuery(listSuppliers);
   const queryClient = useQueryClient();
   const [params, setParams] = useSearchParams();
   const role = me.data?.user.role;

@@ -5,16 +5,18 @@ import { PageHeader } from '../../components/ui/page-header';
 import { SkeletonRows } from '../../components/ui/skeleton';
 import { paths } from '../../lib/paths';
 import { useMe } from '../../features/auth/api/get-me';
-import { useSupplier } from '../../features/suppliers/api/get-supplier';
+import { useContractQuery } from '../../lib/contract';
+import { can } from '../../shared/capabilities';
+import { getSupplier } from '../../shared/contract/suppliers';
 import { SupplierForm } from '../../features/suppliers/components/supplier-form';
 
 /** Add a supplier (/suppliers/new) or edit one (/suppliers/:supplierId). */
 export function SupplierRoute() {
   const { supplierId } = useParams();
   const me = useMe();
-  const supplier = useSupplier(supplierId);
+  const supplier = useContractQuery(getSupplier, { params: { id: supplierId ?? '' } }, { enabled: Boolean(supplierId) });
   const currency = me.data?.business.currency ?? 'GBP';
-  const canEdit = me.data?.user.role === 'owner' || me.data?.user.role === 'manager';
+  const canEdit = can(me.data?.user.role, 'costs.write');
   const title = supplierId ? (supplier.data?.supplier.name ?? 'Supplier') : 'Add a supplier';
   const header = (
     <>

@@ -5,14 +5,16 @@ import { PageHeader } from '../../components/ui/page-header';
 import { SkeletonRows } from '../../components/ui/skeleton';
 import { paths } from '../../lib/paths';
 import { useMe } from '../../features/auth/api/get-me';
-import { useSuppliers } from '../../features/suppliers/api/get-suppliers';
+import { useContractQuery } from '../../lib/contract';
+import { can } from '../../shared/capabilities';
+import { listSuppliers } from '../../shared/contract/suppliers';
 import { SuppliersTable } from '../../features/suppliers/components/suppliers-table';
 
 export function SuppliersRoute() {
   const me = useMe();
-  const suppliers = useSuppliers();
+  const suppliers = useContractQuery(listSuppliers);
   const currency = me.data?.business.currency ?? 'GBP';
-  const canEdit = me.data?.user.role === 'owner' || me.data?.user.role === 'manager';
+  const canEdit = can(me.data?.user.role, 'costs.write');
   const add = canEdit ? <ButtonLink to={paths.newSupplier.href()}>Add a supplier</ButtonLink> : undefined;
   return (
     <div className="flex max-w-6xl flex-col gap-6">

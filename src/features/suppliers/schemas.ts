@@ -1,22 +1,13 @@
-import { z } from 'zod';
+import type { z } from 'zod';
+import { supplierDetailsSchema } from '../../shared/contract/suppliers';
 import { supplierOrderingSchema } from '../../shared/ordering';
 
-const optionalText = (max: number) => z.string().trim().max(max, `Use at most ${max} characters.`);
-
 /**
- * The supplier form: the details mirror the server's supplier rules (server/suppliers), the
- * ordering terms are the very schema PUT /api/suppliers/:id/ordering validates with.
- * Optional texts are '' in the form and sent as null.
+ * The supplier form: the very schemas the server validates the supplier's details
+ * (POST/PATCH /api/suppliers) and its ordering terms (PUT /api/suppliers/:id/ordering) with.
+ * Optional texts are '' in the form and reach the server as null.
  */
-export const supplierFormSchema = z.object({
-  name: z.string().trim().min(1, 'Name the supplier.').max(120, 'Use at most 120 characters.'),
-  contactName: optionalText(120),
-  orderEmail: z.union([z.literal(''), z.email('Enter an e-mail address for orders.')]),
-  phone: optionalText(40),
-  accountNumber: optionalText(60),
-  notes: optionalText(2000),
-  ...supplierOrderingSchema.shape,
-});
+export const supplierFormSchema = supplierDetailsSchema.extend(supplierOrderingSchema.shape);
 
 export type SupplierFormIn = z.input<typeof supplierFormSchema>;
 export type SupplierFormOut = z.output<typeof supplierFormSchema>;

@@ -1,5 +1,5 @@
 import { inject, test, expect } from 'vitest';
-import { createDb } from '../../../server/db/knex';
+import { createDb } from '../../../server/platform/db';
 import { seedLargeMenu } from '../../../scripts/bench/large-menu';
 import { benchRepricing } from '../../../scripts/bench/repricing';
 

@@ -1,7 +1,7 @@
 import { afterAll, beforeAll, expect, test } from 'vitest';
 import { inject } from 'vitest';
 import type { Knex } from 'knex';
-import { createDb, migrateLatest, runSeeds } from '../../../server/db/knex';
+import { createDb, migrateLatest, runSeeds } from '../../../server/platform/db';
 import { DEMO } from '../../../seeds/01_tenancy';
 import { seed as seedBooks } from '../../../seeds/04_books';
 import { addMonths } from '../../../src/shared/books';

@@ -1,7 +1,7 @@
 import { afterAll, beforeAll, expect, test } from 'vitest';
 import { inject } from 'vitest';
 import type { Knex } from 'knex';
-import { createDb, migrateLatest } from '../../../server/db/knex';
+import { createDb, migrateLatest } from '../../../server/platform/db';
 import { seed as seedTenancy, DEMO } from '../../../seeds/01_tenancy';
 import { seed as seedMenu } from '../../../seeds/02_menu';
 import { menuCosting } from '../../../server/costing/menu.service';

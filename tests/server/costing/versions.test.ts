@@ -1,7 +1,7 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { BOOKS_TABLES, COSTING_TABLES } from '../../../migrations/20261204000000_costing_versions';
 import { menuCosting } from '../../../server/costing/menu.service';
-import { costingVersion, dataVersion } from '../../../server/costing/versions';
+import { costingVersion, dataVersion } from '../../../server/platform/versions';
 import { startTestApp, type TestContext } from '../../helpers/context';
 import { makeBusiness, signIn } from '../../helpers/factories';
 import { makeDrink, makeIngredient, makeSize } from '../../helpers/costing-factories';

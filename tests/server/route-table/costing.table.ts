@@ -78,6 +78,10 @@ const modifierBody = (f: RouteFixture) => {
 };
 const policyBody = { policy: { targetMarginPct: '72', taxMode: 'inclusive', taxRatePct: '20', priceStep: '0.05', rounding: 'up' }, overrides: [{ category: 'Tea', targetMarginPct: '75', taxMode: 'inclusive', taxRatePct: '20', priceStep: '0.05', rounding: 'up' }] };
 
+const supplierBody = () => ({
+  name: `Supplier ${suffix()}`, contactName: 'Ada Greaves', orderEmail: `orders-${suffix()}@supplier.test`, phone: '0100 000000', accountNumber: 'ACC-1', notes: 'Rings before delivering.',
+});
+
 export const routes: RouteCase[] = [
   { method: 'post', path: '/api/costing/preview', body: () => DOCUMENTED_REQUEST, expect: read() },
 
@@ -86,11 +90,11 @@ export const routes: RouteCase[] = [
   { method: 'patch', path: '/api/sizes/:id', url: async (f) => `/api/sizes/${await freshSize(f)}`, body: () => ({ name: `Renamed ${suffix()}` }), expect: write(200, 404) },
   { method: 'delete', path: '/api/sizes/:id', url: async (f) => `/api/sizes/${await freshSize(f)}`, expect: write(204, 404) },
 
-  { method: 'get', path: '/api/suppliers', expect: read() },
-  { method: 'get', path: '/api/suppliers/:id', url: async (f) => `/api/suppliers/${(await base(f)).supplierId}`, expect: read(200, 404) },
-  { method: 'post', path: '/api/suppliers', body: () => ({ name: `Supplier ${suffix()}`, orderEmail: `orders-${suffix()}@supplier.test` }), expect: write(201) },
-  { method: 'patch', path: '/api/suppliers/:id', url: async (f) => `/api/suppliers/${(await base(f)).supplierId}`, body: () => ({ phone: '0100 000000' }), expect: write(200, 404) },
-  { method: 'delete', path: '/api/suppliers/:id', url: async (f) => `/api/suppliers/${await makeSupplier(f.db, f.biz.businessId)}`, expect: write(204, 404) },
+  { method: 'get', path: '/api/suppliers' },
+  { method: 'get', path: '/api/suppliers/:id', url: async (f) => `/api/suppliers/${(await base(f)).supplierId}` },
+  { method: 'post', path: '/api/suppliers', body: () => ({ name: `Supplier ${suffix()}`, orderEmail: `orders-${suffix()}@supplier.test` }), fullBody: supplierBody },
+  { method: 'patch', path: '/api/suppliers/:id', url: async (f) => `/api/suppliers/${(await base(f)).supplierId}`, body: () => ({ phone: '0100 000000' }), fullBody: supplierBody },
+  { method: 'delete', path: '/api/suppliers/:id', url: async (f) => `/api/suppliers/${await makeSupplier(f.db, f.biz.businessId)}` },
 
   { method: 'get', path: '/api/ingredients', expect: read() },
   { method: 'get', path: '/api/ingredients/:id', url: async (f) => `/api/ingredients/${(await base(f)).ingredientId}`, expect: read(200, 404) },

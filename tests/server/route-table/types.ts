@@ -22,11 +22,22 @@ export interface RouteFixture {
 export interface RouteCase {
   method: 'get' | 'post' | 'patch' | 'put' | 'delete';
   path: string;
-  expect: Record<Actor, number>;
+  /**
+   * The status each actor gets. Left out for a contract entry, it is worked out from the entry:
+   * anonymous 401, a role without the capability 403, the others the success status, and
+   * another business 404 where the path names a record. Given, its 401s and 403s must agree
+   * with the entry's capability.
+   */
+  expect?: Record<Actor, number>;
   url?: (f: RouteFixture, actor: Actor) => string | Promise<string>;
   body?: (f: RouteFixture, actor: Actor) => unknown;
   /** The call may end or replace the session (logout, sign-up): use a fresh one for it. */
   ownSession?: boolean;
+  /**
+   * For the hostile-input walk: a valid body with every field the schema knows (optional ones
+   * too), sent by the owner. Defaults to `body`.
+   */
+  fullBody?: (f: RouteFixture, actor: Actor) => unknown;
   /** For routes that take a raw body or multipart: send it yourself. */
   send?: (req: Test, f: RouteFixture, actor: Actor) => Test;
 }

@@ -1,40 +1,21 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import { apiClient } from '../../../lib/api-client';
+import { call, invalidate, useContractMutation } from '../../../lib/contract';
 import { paths } from '../../../lib/paths';
-import { suppliersKey, type PaymentTerms, type Supplier } from './get-suppliers';
+import { createSupplier, deleteSupplier, getSupplier, updateSupplier, type SupplierDetailsIn } from '../../../shared/contract/suppliers';
+import type { z } from 'zod';
+import type { supplierOrderingSchema } from '../../../shared/ordering';
 
-export interface SupplierDetailsIn {
-  name: string;
-  contactName: string | null;
-  orderEmail: string | null;
-  phone: string | null;
-  accountNumber: string | null;
-  notes: string | null;
-}
-
-export interface SupplierOrderingIn {
-  minimumOrder: string;
-  deliveryDays: number[];
-  orderCutoff: string;
-  leadDays: number;
-  deliveryCharge: string;
-  paymentTerms: PaymentTerms;
-}
+export type SupplierOrderingIn = z.input<typeof supplierOrderingSchema>;
 
 /**
  * The supplier's details and its ordering terms are two resources on the server (the
- * costing side owns the first, the ordering side the second): save the details, then the terms.
+ * supplier's own and the purchasing side's): save the details, then the terms.
  */
-export async function saveSupplier({ id, details, ordering }: { id?: string; details: SupplierDetailsIn; ordering: SupplierOrderingIn }): Promise<{ supplier: Supplier }> {
-  const saved = id
-    ? await apiClient.patch<{ supplier: Supplier }>(paths.api.supplier(id), details)
-    : await apiClient.post<{ supplier: Supplier }>(paths.api.suppliers(), details);
+export async function saveSupplier({ id, details, ordering }: { id?: string; details: SupplierDetailsIn; ordering: SupplierOrderingIn }) {
+  const saved = id ? await call(updateSupplier, { params: { id }, body: details }) : await call(createSupplier, { body: details });
   await apiClient.put(paths.api.supplierOrdering(saved.supplier.id), ordering);
-  return apiClient.get<{ supplier: Supplier }>(paths.api.supplier(saved.supplier.id));
-}
-
-export function deleteSupplier(id: string): Promise<void> {
-  return apiClient.delete(paths.api.supplier(id));
+  return call(getSupplier, { params: { id: saved.supplier.id } });
 }
 
 export function useSaveSupplier() {
@@ -42,14 +23,10 @@ export function useSaveSupplier() {
   return useMutation({
     mutationFn: saveSupplier,
     // A half-done save (details saved, terms refused) still changed the list.
-    onSettled: () => queryClient.invalidateQueries({ queryKey: suppliersKey }),
+    onSettled: () => invalidate(queryClient, '/api/suppliers'),
   });
 }
 
 export function useDeleteSupplier() {
-  const queryClient = useQueryClient();
-  return useMutation({
-    mutationFn: deleteSupplier,
-    onSuccess: () => queryClient.invalidateQueries({ queryKey: suppliersKey }),
-  });
+  return useContractMutation(deleteSupplier, { invalidates: ['/api/suppliers'] });
 }

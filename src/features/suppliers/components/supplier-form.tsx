@@ -15,7 +15,7 @@ import { currencyDecimals } from '../../../lib/format';
 import { applyServerErrors } from '../../../lib/form-errors';
 import { paths } from '../../../lib/paths';
 import { ISO_WEEKDAYS } from '../../../shared/ordering';
-import type { Supplier } from '../api/get-suppliers';
+import type { Supplier } from '../../../shared/contract/suppliers';
 import { useDeleteSupplier, useSaveSupplier } from '../api/save-supplier';
 import { supplierFormSchema, weekdayName, type SupplierFormIn, type SupplierFormOut } from '../schemas';
 
@@ -39,8 +39,6 @@ function defaults(s: Supplier | undefined, currency: string): SupplierFormIn {
   };
 }
 
-const orNull = (v: string) => (v.trim() === '' ? null : v.trim());
-
 /** A supplier's details and how they take orders: e-mail, minimum, delivery days, cut-off, lead time, charge, how paid. */
 export function SupplierForm({ supplier, currency, canEdit }: { supplier?: Supplier; currency: string; canEdit: boolean }) {
   const save = useSaveSupplier();
@@ -62,7 +60,7 @@ export function SupplierForm({ supplier, currency, canEdit }: { supplier?: Suppl
     save.mutate(
       {
         id: supplier?.id,
-        details: { name: v.name, contactName: orNull(v.contactName), orderEmail: orNull(v.orderEmail), phone: orNull(v.phone), accountNumber: orNull(v.accountNumber), notes: orNull(v.notes) },
+        details: { name: v.name, contactName: v.contactName, orderEmail: v.orderEmail, phone: v.phone, accountNumber: v.accountNumber, notes: v.notes },
         ordering: { minimumOrder: v.minimumOrder, deliveryDays: v.deliveryDays, orderCutoff: v.orderCutoff, leadDays: v.leadDays, deliveryCharge: v.deliveryCharge, paymentTerms: v.paymentTerms },
       },
       {
@@ -185,7 +183,7 @@ export function SupplierForm({ supplier, currency, canEdit }: { supplier?: Suppl
             remove.reset();
           }}
           onConfirm={() =>
-            remove.mutate(supplier.id, {
+            remove.mutate({ params: { id: supplier.id } }, {
               onSuccess: () => {
                 notify(`${supplier.name} removed.`);
                 navigate(paths.suppliers.href());

@@ -7,7 +7,7 @@ import { SortHeader, Table, Td, THead, useSortedRows } from '../../../components
 import { StatusMark } from '../../../components/ui/status-mark';
 import { formatMoney } from '../../../lib/format';
 import { paths } from '../../../lib/paths';
-import type { Supplier } from '../api/get-suppliers';
+import type { Supplier } from '../../../shared/contract/suppliers';
 import { weekdayName } from '../schemas';
 
 type SortKey = 'name' | 'paymentTerms' | 'minimumOrder' | 'leadDays';

@@ -20,13 +20,19 @@ const schema = z.object({
   STRIPE_WEBHOOK_SECRET: z.string().regex(/^whsec_/, 'must start with whsec_').default('whsec_tamp_and_tally_local_secret'),
   UPLOAD_DIR: z.string().default('.data/uploads'),
   UPLOAD_MAX_BYTES: z.coerce.number().int().positive().default(10 * 1024 * 1024),
+  CHECK_RESPONSES: z.enum(['0', '1', 'true', 'false', '']).default('').transform((v) => v === '1' || v === 'true'),
   LOG_LEVEL: z.enum(['fatal', 'error', 'warn', 'info', 'debug', 'trace', 'silent']).default('info'),
   LOGIN_MAX_FAILURES: z.coerce.number().int().positive().default(5),
   LOGIN_MAX_FAILURES_PER_ADDRESS: z.coerce.number().int().positive().default(20),
   LOGIN_WINDOW_MINUTES: z.coerce.number().int().positive().default(15),
 });
 
-export type Config = z.infer<typeof schema> & { cookieSecure: boolean; paymentsTestMode: boolean };
+export type Config = z.infer<typeof schema> & {
+  cookieSecure: boolean;
+  paymentsTestMode: boolean;
+  /** Check every JSON response against its contract entry (tests, and development on request). */
+  checkResponses: boolean;
+};
 
 export class ConfigError extends Error {}
 
@@ -41,7 +47,12 @@ export function loadConfig(env: Record<string, string | undefined> = process.env
   if (c.NODE_ENV === 'production' && c.SESSION_SECRET === schema.shape.SESSION_SECRET.parse(undefined)) {
     throw new ConfigError('Invalid configuration:\n  SESSION_SECRET: must be set in production');
   }
-  return { ...c, cookieSecure: c.APP_URL.startsWith('https:'), paymentsTestMode: c.STRIPE_SECRET_KEY.startsWith('sk_test_') };
+  return {
+    ...c,
+    cookieSecure: c.APP_URL.startsWith('https:'),
+    paymentsTestMode: c.STRIPE_SECRET_KEY.startsWith('sk_test_'),
+    checkResponses: c.NODE_ENV === 'test' || c.CHECK_RESPONSES,
+  };
 }
 
 /** The explicit list of configuration that reaches the browser. */

@@ -1,5 +1,5 @@
 import type { z } from 'zod';
-import { zodFieldErrors } from '../../src/shared/schemas/field-errors';
+import { zodFieldErrors } from '../../../src/shared/schemas/field-errors';
 import { invalidInput } from '../errors';
 
 /** Parses input with a zod schema or throws a 400 naming each bad field (`sizes[0].lines[1].unit`). */

@@ -1,7 +1,7 @@
 import { randomBytes, timingSafeEqual } from 'node:crypto';
 import type { NextFunction, Request, Response } from 'express';
 import { AppError, forbidden, notFound, unauthenticated } from '../errors';
-import { can, type Capability } from '../auth/roles';
+import { can, type Capability } from '../../auth/roles';
 
 /** 401 unless signed in. */
 export function requireUser(req: Request, _res: Response, next: NextFunction) {
