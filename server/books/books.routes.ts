@@ -9,7 +9,7 @@ import { parse } from '../platform/http/validate';
 import { closeMonth, reopenMonth } from './close.service';
 import { cogsReport } from './cogs.service';
 import * as counts from './counts.service';
-import { sendCsv } from './csv';
+import { sendCsv } from '../platform/csv';
 import { COGS_COLUMNS, cogsCsv, cogsTrend, PURCHASES_COLUMNS, purchasesCsv, STOCK_COLUMNS, stockValuationCsv, supplierChart } from './exports.service';
 import { listPeriods } from './periods.service';
 import * as sales from './sales.service';

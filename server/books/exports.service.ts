@@ -5,7 +5,7 @@ import { writeMoney, writeQuantity } from '../../src/shared/money';
 import { notFound } from '../platform/errors';
 import { cogsReport, type CogsReport } from './cogs.service';
 import { purchasesBySupplier } from './cogs.repo';
-import { pages, slug, type CsvColumn, type CsvRecord } from './csv';
+import { pages, slug, type CsvColumn, type CsvRecord } from '../platform/csv';
 import { assertSite } from './sites';
 
 /** Column names of the exports (documented in the README): plain words, our own. */

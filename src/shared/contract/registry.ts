@@ -1,12 +1,32 @@
 import type { Endpoint } from './endpoint';
+import * as auth from './auth';
+import * as team from './team';
+import * as sites from './sites';
+import * as business from './business';
+import * as system from './system';
 import * as suppliers from './suppliers';
+import * as costing from './costing';
+import * as repricing from './repricing';
+import * as purchasing from './purchasing';
+import * as stock from './stock';
+import * as books from './books';
 
 /**
  * Every endpoint of the API, by domain. The server mounts each; the route table, the
  * hostile-input walk and the README's API section are read from this list.
  */
 export const DOMAINS = {
+  auth,
+  team,
+  sites,
+  business,
+  system,
   suppliers,
+  costing,
+  repricing,
+  purchasing,
+  stock,
+  books,
 } as const;
 
 function isEndpoint(x: unknown): x is Endpoint {
