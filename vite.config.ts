@@ -14,12 +14,18 @@ export default defineConfig({
     proxy: { '/api': `http://127.0.0.1:${apiPort}` },
   },
   test: {
-    include: ['tests/**/*.test.ts'],
-    globalSetup: ['tests/setup/global-setup.ts'],
     setupFiles: ['tests/setup/each-file.ts'],
     pool: 'forks',
-    testTimeout: 30_000,
-    hookTimeout: 60_000,
+    testTimeout: 60_000,
+    hookTimeout: 120_000,
     restoreMocks: true,
+    // Three projects: the pure core needs no database (`npm run test:unit` runs it alone in
+    // seconds); API and browser tests share one throwaway PostgreSQL cluster. Browser tests
+    // get generous limits: on a busy machine only a hang should fail them.
+    projects: [
+      { extends: true, test: { name: 'unit', include: ['tests/shared/**/*.test.ts', 'tests/lib/**/*.test.ts', 'tests/app/**/*.test.ts', 'tests/components/**/*.test.ts'] } },
+      { extends: true, test: { name: 'server', include: ['tests/server/**/*.test.ts', 'tests/fakes/**/*.test.ts', 'tests/scripts/**/*.test.ts'], globalSetup: ['tests/setup/global-setup.ts'] } },
+      { extends: true, test: { name: 'browser', include: ['tests/e2e/**/*.test.ts'], globalSetup: ['tests/setup/global-setup.ts'], testTimeout: 240_000, hookTimeout: 240_000 } },
+    ],
   },
 });

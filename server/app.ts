@@ -6,8 +6,8 @@ import express, { type Router } from 'express';
 import session from 'express-session';
 import helmet from 'helmet';
 import pg from 'pg';
-import { publicConfig } from './platform/config';
-import type { AppDeps } from './platform/deps';
+import type { AppDeps, AppInput } from './platform/deps';
+import { Background } from './platform/background';
 import { configurePassport } from './auth/passport';
 import { createSessionStore } from './auth/session-store';
 import { authRoutes, isCsrfExempt } from './auth/auth.routes';
@@ -15,8 +15,9 @@ import { csrfProtection } from './platform/http/middleware';
 import { refuseHostileInput } from './platform/http/ingress';
 import { errorHandler } from './platform/http/error-handler';
 import { notFound } from './platform/errors';
-import { teamRoutes } from './team/team.routes';
-import { sitesRoutes } from './sites/sites.routes';
+import { teamRoutes } from './auth/team.routes';
+import { businessRoutes } from './business/business.routes';
+import { systemRoutes } from './system/system.routes';
 import { costingRouters } from './costing/costing.routes';
 import { suppliersRoutes } from './suppliers/suppliers.routes';
 import { booksRouters } from './books/books.routes';
@@ -29,7 +30,8 @@ import { repricingRoutes } from './repricing/repricing.routes';
 const distDir = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '../dist');
 
 /** The Express app; it never listens (server/index.ts does, tests use supertest). */
-export function createApp(deps: AppDeps) {
+export function createApp(input: AppInput) {
+  const deps: AppDeps = { ...input, background: new Background(input.logger) };
   const { db, config, logger } = deps;
   const app = express();
   app.set('trust proxy', 'loopback');
@@ -66,7 +68,10 @@ export function createApp(deps: AppDeps) {
 
   const sessionPool = new pg.Pool({ connectionString: config.DATABASE_URL, max: 5 });
   const sessionStore = createSessionStore(sessionPool);
+  /** Waits for work done after answers (e-mails), e.g. before a test checks the mailbox is empty. */
+  app.locals.idle = () => deps.background.idle();
   app.locals.shutdown = async () => {
+    await deps.background.idle();
     sessionStore.close();
     await sessionPool.end();
   };
@@ -86,17 +91,6 @@ export function createApp(deps: AppDeps) {
   app.use(passport.session());
   app.use(csrfProtection(isCsrfExempt));
 
-  app.get('/api/health', async (_req, res) => {
-    try {
-      await db.raw('select 1');
-      res.json({ ok: true, db: 'up' });
-    } catch {
-      res.status(503).json({ ok: false, db: 'down' });
-    }
-  });
-  app.get('/api/config', (_req, res) => {
-    res.json(publicConfig(config));
-  });
 
   for (const r of apiRouters(deps, passport)) app.use(r);
 
@@ -118,7 +112,7 @@ export function createApp(deps: AppDeps) {
 
 /** Every domain's router, each defining full /api paths (the route table test walks them). */
 function apiRouters(deps: AppDeps, passport: ReturnType<typeof configurePassport>): Router[] {
-  return [authRoutes(deps, passport), teamRoutes(deps), sitesRoutes(deps), ...costingRouters(deps), suppliersRoutes(deps), ...booksRouters(deps), repricingRoutes(deps), ordersRoutes(deps), paymentsRoutes(deps), stockRoutes(deps)];
+  return [systemRoutes(deps), authRoutes(deps, passport), teamRoutes(deps), businessRoutes(deps), ...costingRouters(deps), suppliersRoutes(deps), ...booksRouters(deps), repricingRoutes(deps), ordersRoutes(deps), paymentsRoutes(deps), stockRoutes(deps)];
 }
 
 function rawBodyRouters(deps: AppDeps): Router[] {

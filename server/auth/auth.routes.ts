@@ -1,15 +1,17 @@
 import { Router, type Request } from 'express';
+import type passport from 'passport';
+import {
+  acceptInvitation, changePassword, completePasswordReset, invitation, login, logout, me, requestPasswordReset, signup,
+} from '../../src/shared/contract/auth';
+import type { Session } from '../../src/shared/contract/auth';
 import type { AppDeps } from '../platform/deps';
-import { unauthenticated } from '../platform/errors';
+import { AppError } from '../platform/errors';
+import { endpointsOf } from '../platform/http/mount';
 import { csrfTokenFor } from '../platform/http/middleware';
-import { parse } from '../platform/http/validate';
-import { acceptInviteSchema, loginSchema, resetCompleteSchema, resetRequestSchema, signupSchema } from './auth.schemas';
 import * as auth from './auth.service';
 import { authenticateLocal, logIn, logOut } from './passport';
 import type { SessionUser } from './roles';
-import { loginThrottles } from './throttle';
-import { findBusiness } from './users.repo';
-import type passport from 'passport';
+import { assertLoginAllowed, assertResetAllowed, recordLoginFailure, recordLoginSuccess } from './throttle';
 
 /** Routes that work without a session, and so without a CSRF token. */
 const CSRF_EXEMPT = new Set([
@@ -20,64 +22,67 @@ const CSRF_EXEMPT = new Set([
 ]);
 export const isCsrfExempt = (path: string) => CSRF_EXEMPT.has(path) || /^\/api\/invitations\/[^/]+\/accept$/.test(path);
 
-export function authRoutes(deps: AppDeps, p: passport.Authenticator) {
-  const { db } = deps;
-  const r = Router();
+/** Reset requests from one address: this many in a quarter of an hour, then 429. */
+const RESETS_PER_ADDRESS = 10;
 
-  async function loginBody(req: Request, user: SessionUser) {
-    return { user, csrfToken: csrfTokenFor(req), business: await findBusiness(db, user.businessId) };
+const address = (req: Request) => req.ip ?? 'unknown';
+
+export function authRoutes(deps: AppDeps, p: passport.Authenticator) {
+  const { db, config } = deps;
+  const r = Router();
+  const on = endpointsOf(r, deps);
+  const throttle = { maxFailures: config.LOGIN_MAX_FAILURES, maxFailuresPerAddress: config.LOGIN_MAX_FAILURES_PER_ADDRESS, windowMinutes: config.LOGIN_WINDOW_MINUTES };
+
+  async function session(req: Request, user: SessionUser): Promise<Session> {
+    return { user, csrfToken: csrfTokenFor(req), business: await auth.businessOf(deps, user.businessId) };
   }
 
-  r.post('/api/auth/login', ...loginThrottles(db, { maxFailures: deps.config.LOGIN_MAX_FAILURES, maxFailuresPerAddress: deps.config.LOGIN_MAX_FAILURES_PER_ADDRESS, windowMinutes: deps.config.LOGIN_WINDOW_MINUTES }), async (req, res) => {
-    parse(loginSchema, req.body);
+  on(login, async ({ req, body }) => {
+    await assertLoginAllowed(db, body.email, address(req));
     const user = await authenticateLocal(p, req);
     if (!user) {
-      res.status(401).json({ error: { code: 'bad_credentials', message: 'That e-mail and password do not match an account.' } });
-      return;
+      await recordLoginFailure(db, throttle, body.email, address(req));
+      throw new AppError(401, 'bad_credentials', 'That e-mail and password do not match an account.');
     }
+    await recordLoginSuccess(db, body.email, address(req));
     await logIn(req, user);
-    res.json(await loginBody(req, user));
+    return session(req, user);
   });
 
-  r.get('/api/auth/me', async (req, res) => {
-    if (!req.user) throw unauthenticated();
-    res.json(await loginBody(req, req.user));
-  });
+  on(me, ({ req, user }) => session(req, user));
 
-  r.post('/api/auth/logout', async (req, res) => {
+  on(logout, async ({ req, res }) => {
     if (req.user) await logOut(req);
     res.clearCookie('tt.sid');
-    res.status(204).end();
   });
 
-  r.post('/api/auth/signup', async (req, res) => {
-    const input = parse(signupSchema, req.body);
-    const user = await auth.signup(db, input);
+  on(changePassword, async ({ req, user, body }) => {
+    await auth.changePassword(deps, user, req.sessionID, body.currentPassword, body.newPassword);
+  });
+
+  on(signup, async ({ req, body }) => {
+    const user = await auth.signup(deps, body);
     await logIn(req, user);
-    res.status(201).json(await loginBody(req, user));
+    return session(req, user);
   });
 
-  r.post('/api/auth/password-reset/request', async (req, res) => {
-    const { email } = parse(resetRequestSchema, req.body);
-    await auth.requestPasswordReset(db, deps.mailer, deps.config.APP_URL, email);
-    res.status(202).json({ ok: true });
+  on(requestPasswordReset, async ({ req, body }) => {
+    await assertResetAllowed(db, address(req), RESETS_PER_ADDRESS, 15);
+    // The answer goes before the lookup, so its timing says nothing of whether the account exists.
+    deps.background.run('password reset', () => auth.sendPasswordReset(deps, body.email));
+    return { ok: true as const };
   });
 
-  r.post('/api/auth/password-reset/complete', async (req, res) => {
-    const { token, password } = parse(resetCompleteSchema, req.body);
-    await auth.completePasswordReset(db, token, password);
-    res.status(204).end();
+  on(completePasswordReset, async ({ body }) => {
+    await auth.completePasswordReset(deps, body.token, body.password);
   });
 
-  r.get('/api/invitations/:token', async (req, res) => {
-    res.json(await auth.getInvitation(db, req.params.token));
-  });
+  on(invitation, ({ params }) => auth.getInvitation(deps, params.token));
 
-  r.post('/api/invitations/:token/accept', async (req, res) => {
-    const input = parse(acceptInviteSchema, req.body);
-    const user = await auth.acceptInvitation(db, req.params.token, input);
+  on(acceptInvitation, async ({ req, params, body }) => {
+    const user = await auth.acceptInvitation(deps, params.token, body);
     await logIn(req, user);
-    res.status(201).json(await loginBody(req, user));
+    return session(req, user);
   });
 
   return r;

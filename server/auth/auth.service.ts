@@ -1,38 +1,56 @@
-import type { Knex } from 'knex';
 import type { z } from 'zod';
-import { badRequest, conflict, notFound } from '../platform/errors';
-import type { Mailer } from '../platform/mailer';
-import { hashPassword, hashToken, newToken } from './passwords';
-import type { signupSchema } from './auth.schemas';
-import { findUserByEmail, toSessionUser, type UserRow } from './users.repo';
+import type { signupSchema } from '../../src/shared/contract/auth';
+import type { Business } from '../../src/shared/contract/auth';
+import type { AppDeps } from '../platform/deps';
+import { badRequest, conflict, invalidInput, notFound } from '../platform/errors';
+import { hashPassword, hashToken, newToken, verifyPassword } from './passwords';
+import type { SessionUser } from './roles';
+import {
+  claimInvitation, claimPasswordReset, endSessionsOf, expireResetsOf, findBusinessRow, findOpenInvitation, findUserByEmail, findUserById,
+  insertBusiness, insertPasswordReset, insertUser, resetsSentWithinHour, setPasswordHash, toSessionUser, type BusinessRow,
+} from './users.repo';
 
 const RESET_HOURS = 2;
+/** Reset links sent to one account within an hour, at the most; further requests send nothing (and say the same). */
+const RESETS_PER_HOUR = 3;
 export const INVITE_DAYS = 7;
 
-export async function signup(db: Knex, input: z.output<typeof signupSchema>) {
+export function presentBusiness(b: BusinessRow): Business {
+  return { id: b.id, name: b.name, country: b.country, currency: b.currency, taxMode: b.tax_mode, timeZone: b.time_zone };
+}
+
+export async function businessOf({ db }: Pick<AppDeps, 'db'>, businessId: string): Promise<Business> {
+  const b = await findBusinessRow(db, businessId);
+  if (!b) throw notFound('That business');
+  return presentBusiness(b);
+}
+
+export async function signup({ db }: AppDeps, input: z.output<typeof signupSchema>): Promise<SessionUser> {
   if (await findUserByEmail(db, input.email)) {
     throw conflict('email_taken', 'An account with this e-mail already exists. Sign in or reset your password.');
   }
   const passwordHash = await hashPassword(input.password);
   return db.transaction(async (trx) => {
-    const [b] = await trx('businesses')
-      .insert({ name: input.businessName, country: input.country, currency: input.currency, tax_mode: input.taxMode })
-      .returning('id');
+    const b = await insertBusiness(trx, {
+      name: input.businessName, country: input.country, currency: input.currency, tax_mode: input.taxMode, time_zone: input.timeZone ?? 'Europe/London',
+    });
     await trx('sites').insert({ business_id: b.id, name: input.siteName });
-    const [u] = await trx<UserRow>('users')
-      .insert({ business_id: b.id, email: input.email, name: input.name, role: 'owner', password_hash: passwordHash })
-      .returning('*');
-    return toSessionUser(u);
+    return toSessionUser(await insertUser(trx, { business_id: b.id, email: input.email, name: input.name, role: 'owner', password_hash: passwordHash }));
   });
 }
 
-export async function requestPasswordReset(db: Knex, mailer: Mailer, appUrl: string, email: string) {
+/**
+ * Sends a reset link when the address has an account. Called after the answer has gone, so
+ * that the answer takes the same time whether the account exists or not; an account gets at
+ * most RESETS_PER_HOUR links an hour, however often it is asked.
+ */
+export async function sendPasswordReset({ db, mailer, config }: AppDeps, email: string): Promise<void> {
   const user = await findUserByEmail(db, email);
-  // The answer is the same whether or not the account exists.
   if (!user) return;
+  if ((await resetsSentWithinHour(db, user.id)) >= RESETS_PER_HOUR) return;
   const { token, tokenHash } = newToken();
-  await db('password_resets').insert({ user_id: user.id, token_hash: tokenHash, expires_at: db.raw(`now() + interval '${RESET_HOURS} hours'`) });
-  const link = `${appUrl}/reset-password?token=${token}`;
+  await insertPasswordReset(db, user.id, tokenHash, RESET_HOURS);
+  const link = `${config.APP_URL}/reset-password?token=${token}`;
   await mailer.send({
     to: user.email,
     subject: 'Reset your Tamp & Tally password',
@@ -40,50 +58,51 @@ export async function requestPasswordReset(db: Knex, mailer: Mailer, appUrl: str
   });
 }
 
-export async function completePasswordReset(db: Knex, token: string, password: string) {
+/** Sets the new password and ends every session of that user (whoever had the old one is signed out). */
+export async function completePasswordReset({ db }: AppDeps, token: string, password: string): Promise<void> {
   const passwordHash = await hashPassword(password);
   await db.transaction(async (trx) => {
-    // Marking it used in the same statement makes the link single-use even under races.
-    const [row] = await trx('password_resets')
-      .where({ token_hash: hashToken(token) })
-      .whereNull('used_at')
-      .where('expires_at', '>', trx.fn.now())
-      .update({ used_at: trx.fn.now() })
-      .returning('user_id');
-    if (!row) throw badRequest('invalid_token', 'This reset link has expired or was already used. Ask for a new one.');
-    await trx('users').where({ id: row.user_id }).update({ password_hash: passwordHash, updated_at: trx.fn.now() });
-    await trx('password_resets').where({ user_id: row.user_id }).whereNull('used_at').update({ used_at: trx.fn.now() });
+    const userId = await claimPasswordReset(trx, hashToken(token));
+    if (!userId) throw badRequest('invalid_token', 'This reset link has expired or was already used. Ask for a new one.');
+    await setPasswordHash(trx, userId, passwordHash);
+    await expireResetsOf(trx, userId);
+    await endSessionsOf(trx, userId);
   });
 }
 
-async function openInvitation(db: Knex, token: string) {
-  const inv = await db('invitations as i')
-    .join('businesses as b', 'b.id', 'i.business_id')
-    .where({ 'i.token_hash': hashToken(token) })
-    .whereNull('i.accepted_at')
-    .where('i.expires_at', '>', db.fn.now())
-    .first('i.*', 'b.name as business_name');
+/** Changes the signed-in user's password; their other sessions end, this one stays. */
+export async function changePassword({ db }: AppDeps, user: SessionUser, currentSid: string, current: string, next: string): Promise<void> {
+  const row = await findUserById(db, user.id);
+  if (!row?.password_hash || !(await verifyPassword(row.password_hash, current))) {
+    throw invalidInput({ currentPassword: 'That is not your current password.' }, 'Your current password did not match.');
+  }
+  const passwordHash = await hashPassword(next);
+  await db.transaction(async (trx) => {
+    await setPasswordHash(trx, user.id, passwordHash);
+    await expireResetsOf(trx, user.id);
+    await endSessionsOf(trx, user.id, currentSid);
+  });
+}
+
+async function openInvitation({ db }: Pick<AppDeps, 'db'>, token: string) {
+  const inv = await findOpenInvitation(db, hashToken(token));
   if (!inv) throw notFound('This invitation');
   return inv;
 }
 
-export async function getInvitation(db: Knex, token: string) {
-  const inv = await openInvitation(db, token);
-  return { email: inv.email as string, role: inv.role as string, businessName: inv.business_name as string };
+export async function getInvitation(deps: AppDeps, token: string) {
+  const inv = await openInvitation(deps, token);
+  return { email: inv.email, role: inv.role, businessName: inv.business_name };
 }
 
-export async function acceptInvitation(db: Knex, token: string, input: { name: string; password: string }) {
+export async function acceptInvitation({ db }: AppDeps, token: string, input: { name: string; password: string }): Promise<SessionUser> {
   const passwordHash = await hashPassword(input.password);
   return db.transaction(async (trx) => {
-    const inv = await openInvitation(trx, token);
-    const claimed = await trx('invitations').where({ id: inv.id }).whereNull('accepted_at').update({ accepted_at: trx.fn.now() });
-    if (claimed !== 1) throw notFound('This invitation');
+    const inv = await openInvitation({ db: trx }, token);
+    if (!(await claimInvitation(trx, inv.id))) throw notFound('This invitation');
     if (await findUserByEmail(trx, inv.email)) {
       throw conflict('email_taken', 'An account with this e-mail already exists. Sign in instead.');
     }
-    const [u] = await trx<UserRow>('users')
-      .insert({ business_id: inv.business_id, email: inv.email, name: input.name, role: inv.role, password_hash: passwordHash })
-      .returning('*');
-    return toSessionUser(u);
+    return toSessionUser(await insertUser(trx, { business_id: inv.business_id, email: inv.email, name: input.name, role: inv.role, password_hash: passwordHash }));
   });
 }

@@ -22,8 +22,83 @@ export async function findUserById(db: Knex, id: string): Promise<UserRow | unde
   return db<UserRow>('users').where({ id }).first();
 }
 
-export async function findBusiness(db: Knex, businessId: string) {
-  const b = await db('businesses').where({ id: businessId }).first();
-  if (!b) return undefined;
-  return { id: b.id as string, name: b.name as string, country: b.country as string, currency: b.currency as string, taxMode: b.tax_mode as 'inclusive' | 'exclusive' };
+export async function insertUser(db: Knex, row: Omit<UserRow, 'id'>): Promise<UserRow> {
+  const [u] = await db<UserRow>('users').insert(row).returning('*');
+  return u;
+}
+
+export async function setPasswordHash(db: Knex, userId: string, passwordHash: string): Promise<void> {
+  await db('users').where({ id: userId }).update({ password_hash: passwordHash, updated_at: db.fn.now() });
+}
+
+/** Ends every stored session of a user, but the one kept (the session that changed the password). */
+export async function endSessionsOf(db: Knex, userId: string, keepSid?: string): Promise<void> {
+  const q = db('session').whereRaw(`(sess::jsonb #>> '{passport,user}') = ?`, [userId]);
+  if (keepSid) q.whereNot({ sid: keepSid });
+  await q.delete();
+}
+
+export interface BusinessRow {
+  id: string;
+  name: string;
+  country: string;
+  currency: string;
+  tax_mode: 'inclusive' | 'exclusive';
+  time_zone: string;
+}
+
+export async function findBusinessRow(db: Knex, businessId: string): Promise<BusinessRow | undefined> {
+  return db<BusinessRow>('businesses').where({ id: businessId }).first('id', 'name', 'country', 'currency', 'tax_mode', 'time_zone');
+}
+
+export async function insertBusiness(db: Knex, row: Omit<BusinessRow, 'id'>): Promise<BusinessRow> {
+  const [b] = await db<BusinessRow>('businesses').insert(row).returning(['id', 'name', 'country', 'currency', 'tax_mode', 'time_zone']);
+  return b;
+}
+
+export async function insertPasswordReset(db: Knex, userId: string, tokenHash: string, hours: number): Promise<void> {
+  await db('password_resets').insert({ user_id: userId, token_hash: tokenHash, expires_at: db.raw('now() + make_interval(hours => ?)', [hours]) });
+}
+
+/** How many reset links were sent to a user within the last hour. */
+export async function resetsSentWithinHour(db: Knex, userId: string): Promise<number> {
+  const r = await db('password_resets').where({ user_id: userId }).where('created_at', '>', db.raw("now() - interval '1 hour'")).count<{ n: string }[]>('* as n');
+  return Number(r[0].n);
+}
+
+/** Marks a reset link used and answers its user, or undefined when it is unknown, used or expired. */
+export async function claimPasswordReset(db: Knex, tokenHash: string): Promise<string | undefined> {
+  // Marking it used in the same statement makes the link single-use even under races.
+  const [row] = await db('password_resets')
+    .where({ token_hash: tokenHash })
+    .whereNull('used_at')
+    .where('expires_at', '>', db.fn.now())
+    .update({ used_at: db.fn.now() })
+    .returning('user_id');
+  return row?.user_id as string | undefined;
+}
+
+export async function expireResetsOf(db: Knex, userId: string): Promise<void> {
+  await db('password_resets').where({ user_id: userId }).whereNull('used_at').update({ used_at: db.fn.now() });
+}
+
+export interface InvitationRow {
+  id: string;
+  business_id: string;
+  email: string;
+  role: Role;
+  business_name: string;
+}
+
+export async function findOpenInvitation(db: Knex, tokenHash: string): Promise<InvitationRow | undefined> {
+  return db('invitations as i')
+    .join('businesses as b', 'b.id', 'i.business_id')
+    .where({ 'i.token_hash': tokenHash })
+    .whereNull('i.accepted_at')
+    .where('i.expires_at', '>', db.fn.now())
+    .first('i.id', 'i.business_id', 'i.email', 'i.role', 'b.name as business_name');
+}
+
+export async function claimInvitation(db: Knex, id: string): Promise<boolean> {
+  return (await db('invitations').where({ id }).whereNull('accepted_at').update({ accepted_at: db.fn.now() })) === 1;
 }

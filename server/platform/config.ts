@@ -44,8 +44,9 @@ export function loadConfig(env: Record<string, string | undefined> = process.env
     throw new ConfigError(`Invalid configuration:\n${lines.join('\n')}`);
   }
   const c = parsed.data;
-  if (c.NODE_ENV === 'production' && c.SESSION_SECRET === schema.shape.SESSION_SECRET.parse(undefined)) {
-    throw new ConfigError('Invalid configuration:\n  SESSION_SECRET: must be set in production');
+  if (c.NODE_ENV === 'production') {
+    const problems = productionProblems(c);
+    if (problems.length > 0) throw new ConfigError(`Invalid configuration for production:\n${problems.map((p) => `  ${p}`).join('\n')}`);
   }
   return {
     ...c,
@@ -53,6 +54,24 @@ export function loadConfig(env: Record<string, string | undefined> = process.env
     paymentsTestMode: c.STRIPE_SECRET_KEY.startsWith('sk_test_'),
     checkResponses: c.NODE_ENV === 'test' || c.CHECK_RESPONSES,
   };
+}
+
+const LOOPBACK = /^(127\.\d+\.\d+\.\d+|localhost|::1|\[::1\]|0\.0\.0\.0)$/i;
+
+/**
+ * What production must not run with: the development defaults of the secrets (anyone who has
+ * read this repository knows them, and could sign a payment event or a session cookie), and a
+ * payments API that is the bundled local fake rather than the provider.
+ */
+function productionProblems(c: z.infer<typeof schema>): string[] {
+  const out: string[] = [];
+  const isDefault = (name: 'SESSION_SECRET' | 'STRIPE_WEBHOOK_SECRET' | 'STRIPE_SECRET_KEY') => c[name] === schema.shape[name].parse(undefined);
+  if (isDefault('SESSION_SECRET')) out.push('SESSION_SECRET: still the development default; set a long random secret');
+  if (isDefault('STRIPE_WEBHOOK_SECRET')) out.push("STRIPE_WEBHOOK_SECRET: still the development default; set the provider's signing secret");
+  if (isDefault('STRIPE_SECRET_KEY')) out.push("STRIPE_SECRET_KEY: still the development default; set the provider's secret key");
+  if (LOOPBACK.test(c.STRIPE_API_HOST)) out.push(`STRIPE_API_HOST: ${c.STRIPE_API_HOST} is the local payments fake; point it at the payments provider`);
+  if (c.STRIPE_API_PROTOCOL !== 'https') out.push('STRIPE_API_PROTOCOL: payments must go over https in production');
+  return out;
 }
 
 /** The explicit list of configuration that reaches the browser. */

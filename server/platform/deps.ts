@@ -1,4 +1,5 @@
 import type { Knex } from 'knex';
+import type { Background } from './background';
 import type { Clock } from './clock';
 import type { Config } from './config';
 import type { Logger } from './logger';
@@ -12,4 +13,9 @@ export interface AppDeps {
   logger: Logger;
   /** The current instant; tests pin it (`fixedClock`). */
   clock: Clock;
+  /** Work done after the answer has gone; made by createApp. */
+  background: Background;
 }
+
+/** What createApp is given: everything but what it makes itself. */
+export type AppInput = Omit<AppDeps, 'background'>;

@@ -1,5 +1,5 @@
 import { matchPath } from 'react-router-dom';
-import { roles, type Role } from '../lib/api-types';
+import { ROLES as roles, type Role } from '../shared/capabilities';
 import { paths } from '../lib/paths';
 
 /**

@@ -67,14 +67,19 @@ export function contractQueryOptions<E extends Endpoint>(e: E, input: CallInput<
   });
 }
 
-type QueryExtras<E extends Endpoint> = Omit<UseQueryOptions<ResponseOf<E>, Error, ResponseOf<E>, ContractKey>, 'queryKey' | 'queryFn'>;
+type QueryExtras<E extends Endpoint, TData> = Omit<UseQueryOptions<ResponseOf<E>, Error, TData, ContractKey>, 'queryKey' | 'queryFn'>;
 
 /** `useContractQuery(listSuppliers)`, `useContractQuery(cogsReport, { query: { month } })`. */
-export function useContractQuery<E extends Endpoint>(
+export function useContractQuery<E extends Endpoint, TData = ResponseOf<E>>(
   e: E,
-  ...[input, options]: Record<string, never> extends CallInput<E> ? [input?: CallInput<E>, options?: QueryExtras<E>] : [input: CallInput<E>, options?: QueryExtras<E>]
+  ...[input, options]: Record<string, never> extends CallInput<E> ? [input?: CallInput<E>, options?: QueryExtras<E, TData>] : [input: CallInput<E>, options?: QueryExtras<E, TData>]
 ) {
-  return useQuery({ ...contractQueryOptions(e, (input ?? {}) as CallInput<E>), ...options });
+  const i = (input ?? {}) as CallInput<E>;
+  return useQuery<ResponseOf<E>, Error, TData, ContractKey>({
+    queryKey: contractKey(e, i as { params?: object; query?: object }),
+    queryFn: ({ signal }) => call(e, i, signal),
+    ...options,
+  });
 }
 
 /** Marks every cached GET of these endpoints (or of every path under a prefix) as stale. */

@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { entriesFor, entryForPath, navigation } from '../../src/app/navigation';
-import { roles } from '../../src/lib/api-types';
+import { ROLES as roles } from '../../src/shared/capabilities';
 import { paths } from '../../src/lib/paths';
 
 describe('navigation', () => {

@@ -31,7 +31,7 @@ export async function startTestApp(env: Record<string, string> = {}, databaseUrl
     LOGIN_MAX_FAILURES_PER_ADDRESS: '10000',
     ...env,
   });
-  const mailer = createMailer({ host: '127.0.0.1', port: mail.smtpPort, from: config.MAIL_FROM });
+  const mailer = createMailer({ host: '127.0.0.1', port: config.SMTP_PORT, from: config.MAIL_FROM });
   const app = createApp({ db, config, mailer, logger: createLogger('silent'), clock: systemClock });
   return {
     db,

@@ -27,7 +27,16 @@ export interface HandlerInput<E extends Endpoint> {
   res: Response;
 }
 
-export type Handler<E extends Endpoint> = (input: HandlerInput<E>) => Promise<ReplyOf<E>> | ReplyOf<E>;
+/** An answer with a status other than the entry's success status (health's 503), still in the entry's shape. */
+export class Reply<T> {
+  constructor(
+    readonly status: number,
+    readonly body: T,
+  ) {}
+}
+
+type Answer<E extends Endpoint> = ReplyOf<E> | Reply<ReplyOf<E>>;
+export type Handler<E extends Endpoint> = (input: HandlerInput<E>) => Promise<Answer<E>> | Answer<E>;
 
 const UUID = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i;
 
@@ -77,9 +86,10 @@ export function mountEndpoint<E extends Endpoint>(router: Router, deps: AppDeps,
     const params = readParams(e, req);
     const query = readInput(e.query, req.query);
     const body = isSchema(e.body) ? readInput(e.body, req.body) : undefined;
-    const reply = await handler({ user: req.user, params, query, body, req, res } as unknown as HandlerInput<E>);
+    const answer = await handler({ user: req.user, params, query, body, req, res } as unknown as HandlerInput<E>);
     if (isRawResponse(e.response) || res.headersSent) return;
-    const status = successStatus(e);
+    const status = answer instanceof Reply ? answer.status : successStatus(e);
+    const reply = answer instanceof Reply ? answer.body : answer;
     if (e.response === null) {
       res.status(status).end();
       return;

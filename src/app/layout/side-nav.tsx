@@ -1,6 +1,6 @@
 import { NavLink } from 'react-router-dom';
 import { cx, focusRing } from '../../components/ui/cx';
-import type { Role } from '../../lib/api-types';
+import { type Role } from '../../shared/capabilities';
 import { entriesFor } from '../navigation';
 
 /** The section links this role may use; a column on wide screens, a list in the phone menu. */

@@ -2,7 +2,8 @@ import { useEffect, useId, useRef, useState } from 'react';
 import { useNavigate } from 'react-router-dom';
 import { Button } from '../../components/ui/button';
 import { cx, focusRing } from '../../components/ui/cx';
-import { roleLabels, type User } from '../../lib/api-types';
+import { ROLE_LABELS as roleLabels } from '../../shared/capabilities';
+import { type User } from '../../shared/contract/auth';
 import { paths } from '../../lib/paths';
 import { useLogout } from '../../features/auth/api/logout';
 
@@ -71,7 +72,7 @@ export function UserMenu({ user }: { user: User }) {
             variant="secondary"
             className="mt-4 w-full"
             busy={logout.isPending}
-            onClick={() => logout.mutate(undefined, { onSettled: () => navigate(paths.signIn.href(), { replace: true }) })}
+            onClick={() => logout.mutate({}, { onSettled: () => navigate(paths.signIn.href(), { replace: true }) })}
           >
             Sign out
           </Button>

@@ -1,7 +1,7 @@
 import { Card } from '../../components/ui/card';
 import { PageHeader } from '../../components/ui/page-header';
 import { TextLink } from '../../components/ui/button';
-import { roleLabels, type Role } from '../../lib/api-types';
+import { ROLE_LABELS as roleLabels, type Role } from '../../shared/capabilities';
 import { paths } from '../../lib/paths';
 import { useMe } from '../../features/auth/api/get-me';
 import { entriesFor } from '../navigation';

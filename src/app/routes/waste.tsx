@@ -2,7 +2,7 @@ import { EmptyState } from '../../components/ui/empty-state';
 import { ErrorState } from '../../components/ui/error-state';
 import { PageHeader } from '../../components/ui/page-header';
 import { SkeletonRows } from '../../components/ui/skeleton';
-import type { Role } from '../../lib/api-types';
+import { type Role } from '../../shared/capabilities';
 import { useWaste, useWasteChoices } from '../../features/books/api/waste';
 import { localMonth } from '../../features/books/components/dates';
 import { WasteForm } from '../../features/books/components/waste-form';

@@ -1,5 +1,5 @@
 import { z } from 'zod';
-import { roles } from '../../lib/api-types';
+import { ROLES as roles } from '../../shared/capabilities';
 
 // Mirrors the server's invite rules (server/auth/auth.schemas.ts).
 export const inviteSchema = z.object({

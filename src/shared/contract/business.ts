@@ -1,4 +1,20 @@
-// The business endpoints. Each is declared with `endpoint({...})` from './endpoint' and exported;
-// src/shared/contract/registry.ts lists this module, so the server, the route table, the
-// hostile-input walk and the README read every export of it.
-export {};
+import { z } from 'zod';
+import { nameOf } from '../schemas/fields';
+import { businessSchema, countryCode, currencyCode, taxMode, timeZone } from './auth';
+import { endpoint } from './endpoint';
+
+export const businessPatchSchema = z
+  .object({ name: nameOf('business'), country: countryCode, currency: currencyCode, taxMode, timeZone })
+  .partial();
+
+export const getBusiness = endpoint({
+  method: 'GET', path: '/api/business', access: 'sites.read',
+  summary: 'The business: name, country, currency, whether menu prices include tax, time zone.',
+  response: z.object({ business: businessSchema }),
+});
+
+export const updateBusiness = endpoint({
+  method: 'PATCH', path: '/api/business', access: 'business.manage',
+  summary: "Changes the business's settings (only the fields sent).",
+  body: businessPatchSchema, response: z.object({ business: businessSchema }),
+});

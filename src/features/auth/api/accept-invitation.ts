@@ -1,22 +1,14 @@
-import { useMutation, useQueryClient } from '@tanstack/react-query';
-import { apiClient } from '../../../lib/api-client';
-import type { Session } from '../../../lib/api-types';
-import { paths } from '../../../lib/paths';
-import { storeSession } from './get-me';
-import { invitationQueryOptions } from './get-invitation';
-
-export function acceptInvitation({ token, ...body }: { token: string; name: string; password: string }): Promise<Session> {
-  return apiClient.post<Session>(paths.api.acceptInvitation(token), body);
-}
+import { useQueryClient } from '@tanstack/react-query';
+import { contractKey, useContractMutation } from '../../../lib/contract';
+import { acceptInvitation, invitation } from '../../../shared/contract/auth';
+import { startSession } from './get-me';
 
 export function useAcceptInvitation() {
   const queryClient = useQueryClient();
-  return useMutation({
-    mutationFn: acceptInvitation,
-    onSuccess: (session, { token }) => {
-      queryClient.clear();
-      storeSession(queryClient, session);
-      queryClient.removeQueries({ queryKey: invitationQueryOptions(token).queryKey });
+  return useContractMutation(acceptInvitation, {
+    onSuccess: (session, { params }) => {
+      startSession(queryClient, session);
+      queryClient.removeQueries({ queryKey: contractKey(invitation, { params }) });
     },
   });
 }

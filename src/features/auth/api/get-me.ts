@@ -1,12 +1,12 @@
 import { queryOptions, useQuery, type QueryClient } from '@tanstack/react-query';
-import { apiClient, isApiError, setCsrfToken } from '../../../lib/api-client';
-import type { Session } from '../../../lib/api-types';
-import { paths } from '../../../lib/paths';
+import { isApiError, setCsrfToken } from '../../../lib/api-client';
+import { call, contractKey } from '../../../lib/contract';
+import { me, type Session } from '../../../shared/contract/auth';
 
 /** The signed-in session, or null when nobody is signed in (a 401 is an answer here, not an error). */
 export async function getMe(): Promise<Session | null> {
   try {
-    const session = await apiClient.get<Session>(paths.api.me());
+    const session = await call(me, {});
     setCsrfToken(session.csrfToken);
     return session;
   } catch (err) {
@@ -20,7 +20,7 @@ export async function getMe(): Promise<Session | null> {
 
 export const meQueryOptions = () =>
   queryOptions({
-    queryKey: ['auth', 'me'] as const,
+    queryKey: contractKey(me),
     queryFn: getMe,
     staleTime: 5 * 60_000,
     retry: false,
@@ -34,4 +34,10 @@ export function useMe() {
 export function storeSession(queryClient: QueryClient, session: Session): void {
   setCsrfToken(session.csrfToken);
   queryClient.setQueryData(meQueryOptions().queryKey, session);
+}
+
+/** A new session replaces whatever was cached for the previous visitor. */
+export function startSession(queryClient: QueryClient, session: Session): void {
+  queryClient.clear();
+  storeSession(queryClient, session);
 }

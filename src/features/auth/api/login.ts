@@ -1,22 +1,9 @@
-import { useMutation, useQueryClient } from '@tanstack/react-query';
-import { apiClient } from '../../../lib/api-client';
-import type { Session } from '../../../lib/api-types';
-import { paths } from '../../../lib/paths';
-import type { SignInInput } from '../schemas';
-import { storeSession } from './get-me';
-
-export function login(input: SignInInput): Promise<Session> {
-  return apiClient.post<Session>(paths.api.login(), input);
-}
+import { useQueryClient } from '@tanstack/react-query';
+import { useContractMutation } from '../../../lib/contract';
+import { login } from '../../../shared/contract/auth';
+import { startSession } from './get-me';
 
 export function useLogin() {
   const queryClient = useQueryClient();
-  return useMutation({
-    mutationFn: login,
-    onSuccess: (session) => {
-      // Whatever was cached belonged to the previous visitor.
-      queryClient.clear();
-      storeSession(queryClient, session);
-    },
-  });
+  return useContractMutation(login, { onSuccess: (session) => startSession(queryClient, session) });
 }

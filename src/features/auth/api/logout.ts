@@ -1,16 +1,12 @@
-import { useMutation, useQueryClient } from '@tanstack/react-query';
-import { apiClient, setCsrfToken } from '../../../lib/api-client';
-import { paths } from '../../../lib/paths';
+import { useQueryClient } from '@tanstack/react-query';
+import { setCsrfToken } from '../../../lib/api-client';
+import { useContractMutation } from '../../../lib/contract';
+import { logout } from '../../../shared/contract/auth';
 import { meQueryOptions } from './get-me';
-
-export function logout(): Promise<void> {
-  return apiClient.post<void>(paths.api.logout());
-}
 
 export function useLogout() {
   const queryClient = useQueryClient();
-  return useMutation({
-    mutationFn: logout,
+  return useContractMutation(logout, {
     onSettled: () => {
       setCsrfToken(null);
       queryClient.clear();

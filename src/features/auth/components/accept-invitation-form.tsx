@@ -9,7 +9,7 @@ import { FormMessage } from '../../../components/ui/form-message';
 import { Input } from '../../../components/ui/input';
 import { SkeletonRows } from '../../../components/ui/skeleton';
 import { isApiError } from '../../../lib/api-client';
-import { roleLabels } from '../../../lib/api-types';
+import { ROLE_LABELS as roleLabels } from '../../../shared/capabilities';
 import { applyServerErrors } from '../../../lib/form-errors';
 import { useAcceptInvitation } from '../api/accept-invitation';
 import { useInvitation } from '../api/get-invitation';
@@ -40,7 +40,7 @@ export function AcceptInvitationForm({ token, onJoined }: { token: string; onJoi
   const onSubmit = handleSubmit((values) => {
     setFormError(null);
     accept.mutate(
-      { token, ...values },
+      { params: { token }, body: values },
       { onSuccess: onJoined, onError: (err) => setFormError(applyServerErrors(err, setError, ['name', 'password'])) },
     );
   });

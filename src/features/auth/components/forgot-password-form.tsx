@@ -23,7 +23,7 @@ export function ForgotPasswordForm() {
 
   const onSubmit = handleSubmit((values) => {
     setFormError(null);
-    request.mutate(values, {
+    request.mutate({ body: values }, {
       onSuccess: () => setSentTo(values.email),
       onError: (err) => setFormError(applyServerErrors(err, setError, ['email'])),
     });

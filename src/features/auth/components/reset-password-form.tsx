@@ -24,7 +24,7 @@ export function ResetPasswordForm({ token, onDone }: { token: string; onDone: ()
   const onSubmit = handleSubmit(({ password }) => {
     setFormError(null);
     complete.mutate(
-      { token, password },
+      { body: { token, password } },
       {
         onSuccess: onDone,
         onError: (err) => {

@@ -24,7 +24,7 @@ export function SignInForm({ onSignedIn }: { onSignedIn: () => void }) {
 
   const onSubmit = handleSubmit((values) => {
     setFormError(null);
-    login.mutate(values, {
+    login.mutate({ body: values }, {
       onSuccess: onSignedIn,
       onError: (err) => {
         if (isApiError(err) && err.code === 'bad_credentials') setFormError('That e-mail and password do not match an account. Check them and try again.');

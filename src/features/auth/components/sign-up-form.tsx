@@ -26,7 +26,7 @@ export function SignUpForm({ onSignedUp }: { onSignedUp: () => void }) {
 
   const onSubmit = handleSubmit((values) => {
     setFormError(null);
-    signup.mutate(values, {
+    signup.mutate({ body: values }, {
       onSuccess: onSignedUp,
       onError: (err) => {
         if (isApiError(err) && err.status === 409) {

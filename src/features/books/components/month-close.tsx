@@ -3,7 +3,7 @@ import { Button } from '../../../components/ui/button';
 import { ConfirmDialog } from '../../../components/ui/confirm-dialog';
 import { StatusMark } from '../../../components/ui/status-mark';
 import { formatDate } from '../../../lib/format';
-import type { Role } from '../../../lib/api-types';
+import { type Role } from '../../../shared/capabilities';
 import { usePeriodAction, usePeriods } from '../api/periods';
 
 const monthLabel = (m: string) => new Date(`${m}-01T12:00:00Z`).toLocaleDateString(undefined, { month: 'long', year: 'numeric', timeZone: 'UTC' });

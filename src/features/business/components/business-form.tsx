@@ -11,7 +11,7 @@ import { CountryOptions, CurrencyOptions } from '../../../components/ui/region-o
 import { SkeletonRows } from '../../../components/ui/skeleton';
 import { TaxModeField } from '../../../components/ui/tax-mode-field';
 import { useToast } from '../../../components/ui/toast';
-import type { Business } from '../../../lib/api-types';
+import { type Business } from '../../../shared/contract/auth';
 import { applyServerErrors } from '../../../lib/form-errors';
 import { useBusiness } from '../api/get-business';
 import { useUpdateBusiness } from '../api/update-business';
@@ -30,7 +30,7 @@ function Form({ business }: { business: Business }) {
 
   const onSubmit = handleSubmit((values) => {
     setFormError(null);
-    update.mutate(values, {
+    update.mutate({ body: values }, {
       onSuccess: () => notify('Business details saved.'),
       onError: (err) => setFormError(applyServerErrors(err, setError, ['name', 'country', 'currency', 'taxMode'])),
     });

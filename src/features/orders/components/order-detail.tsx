@@ -7,7 +7,7 @@ import { StatusMark } from '../../../components/ui/status-mark';
 import { SortHeader, Table, Td, THead, useSortedRows } from '../../../components/ui/table';
 import { useToast } from '../../../components/ui/toast';
 import { isApiError } from '../../../lib/api-client';
-import type { Role } from '../../../lib/api-types';
+import { type Role } from '../../../shared/capabilities';
 import { formatDate, formatMoney, formatQuantity } from '../../../lib/format';
 import { paths } from '../../../lib/paths';
 import { useOrderAction } from '../api/order-actions';

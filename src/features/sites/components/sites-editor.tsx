@@ -10,7 +10,7 @@ import { FormMessage } from '../../../components/ui/form-message';
 import { Input } from '../../../components/ui/input';
 import { SkeletonRows } from '../../../components/ui/skeleton';
 import { useToast } from '../../../components/ui/toast';
-import type { Site } from '../../../lib/api-types';
+import { type Site } from '../../../shared/contract/sites';
 import { applyServerErrors } from '../../../lib/form-errors';
 import { useCreateSite } from '../api/create-site';
 import { useSites } from '../api/get-sites';
@@ -43,7 +43,7 @@ function SiteRow({ site }: { site: Site }) {
   const onSubmit = handleSubmit(({ name }) => {
     setFormError(null);
     rename.mutate(
-      { id: site.id, name },
+      { params: { id: site.id }, body: { name } },
       {
         onSuccess: () => {
           setEditing(false);
@@ -94,7 +94,7 @@ export function SitesEditor() {
 
   const onSubmit = handleSubmit((values) => {
     setFormError(null);
-    create.mutate(values, {
+    create.mutate({ body: values }, {
       onSuccess: ({ site }) => {
         reset({ name: '' });
         notify(`${site.name} added.`);

@@ -1,16 +1,4 @@
-import { useMutation, useQueryClient } from '@tanstack/react-query';
-import { apiClient } from '../../../lib/api-client';
-import { paths } from '../../../lib/paths';
-import { teamQueryOptions } from './get-team';
+import { useContractMutation } from '../../../lib/contract';
+import { removeMember, team } from '../../../shared/contract/team';
 
-export function removeMember(id: string): Promise<void> {
-  return apiClient.delete(paths.api.teamMember(id));
-}
-
-export function useRemoveMember() {
-  const queryClient = useQueryClient();
-  return useMutation({
-    mutationFn: removeMember,
-    onSuccess: () => queryClient.invalidateQueries({ queryKey: teamQueryOptions().queryKey }),
-  });
-}
+export const useRemoveMember = () => useContractMutation(removeMember, { invalidates: [team] });

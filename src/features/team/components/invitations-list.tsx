@@ -6,9 +6,9 @@ import { StatusMark } from '../../../components/ui/status-mark';
 import { SortHeader, Table, Td, Th, THead, useSortedRows } from '../../../components/ui/table';
 import { useToast } from '../../../components/ui/toast';
 import { isApiError } from '../../../lib/api-client';
-import { roleLabels } from '../../../lib/api-types';
+import { ROLE_LABELS as roleLabels } from '../../../shared/capabilities';
 import { formatDate } from '../../../lib/format';
-import type { Invitation } from '../api/get-team';
+import type { Invitation } from '../../../shared/contract/team';
 import { useRevokeInvitation } from '../api/revoke-invitation';
 
 type SortKey = 'email' | 'role' | 'expiresAt';
@@ -72,7 +72,7 @@ export function InvitationsList({ invitations }: { invitations: Invitation[] }) 
         }}
         onConfirm={() => {
           if (!revoking) return;
-          revoke.mutate(revoking.id, {
+          revoke.mutate({ params: { id: revoking.id } }, {
             onSuccess: () => {
               setRevoking(null);
               notify('Invitation withdrawn.');

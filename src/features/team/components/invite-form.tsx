@@ -8,7 +8,7 @@ import { FormMessage } from '../../../components/ui/form-message';
 import { Input, Select } from '../../../components/ui/input';
 import { useToast } from '../../../components/ui/toast';
 import { isApiError } from '../../../lib/api-client';
-import { roleLabels, roles } from '../../../lib/api-types';
+import { ROLE_LABELS as roleLabels, ROLES as roles } from '../../../shared/capabilities';
 import { applyServerErrors } from '../../../lib/form-errors';
 import { useInviteMember } from '../api/invite-member';
 import { inviteSchema } from '../schemas';
@@ -33,7 +33,7 @@ export function InviteForm() {
 
   const onSubmit = handleSubmit((values) => {
     setFormError(null);
-    invite.mutate(values, {
+    invite.mutate({ body: values }, {
       onSuccess: () => {
         reset({ email: '', role: values.role });
         notify(`Invitation sent to ${values.email}.`);

@@ -5,9 +5,9 @@ import { Select } from '../../../components/ui/input';
 import { SortHeader, Table, Td, THead, useSortedRows } from '../../../components/ui/table';
 import { useToast } from '../../../components/ui/toast';
 import { isApiError } from '../../../lib/api-client';
-import { roleLabels, roles, type Role } from '../../../lib/api-types';
+import { ROLE_LABELS as roleLabels, ROLES as roles, type Role } from '../../../shared/capabilities';
 import { useChangeRole } from '../api/change-role';
-import type { Member } from '../api/get-team';
+import type { Member } from '../../../shared/contract/team';
 import { useRemoveMember } from '../api/remove-member';
 
 type SortKey = 'name' | 'email' | 'role';
@@ -30,7 +30,7 @@ export function MembersTable({ members, currentUserId }: { members: Member[]; cu
   const onRoleChange = (member: Member, role: Role) => {
     setRowError(null);
     changeRole.mutate(
-      { id: member.id, role },
+      { params: { id: member.id }, body: { role } },
       {
         onSuccess: () => notify(`${member.name} is now ${roleLabels[role].toLowerCase()}.`),
         onError: (err) => setRowError({ id: member.id, message: explainTeamError(err) }),
@@ -73,7 +73,7 @@ export function MembersTable({ members, currentUserId }: { members: Member[]; cu
                     className="min-w-36 py-1"
                     aria-describedby={rowError?.id === m.id ? errorId : undefined}
                     invalid={rowError?.id === m.id}
-                    disabled={changeRole.isPending && changeRole.variables?.id === m.id}
+                    disabled={changeRole.isPending && changeRole.variables?.params.id === m.id}
                     onChange={(e) => onRoleChange(m, e.target.value as Role)}
                   >
                     {roles.map((r) => (
@@ -119,7 +119,7 @@ export function MembersTable({ members, currentUserId }: { members: Member[]; cu
         onConfirm={() => {
           if (!removing) return;
           const name = removing.name;
-          remove.mutate(removing.id, {
+          remove.mutate({ params: { id: removing.id } }, {
             onSuccess: () => {
               setRemoving(null);
               notify(`${name} was removed.`);
