@@ -72,7 +72,7 @@ export const changePassword = endpoint({
   method: 'POST', path: '/api/auth/password', access: 'signed-in',
   summary: "Changes the signed-in user's password; every other session of theirs ends.",
   body: changePasswordSchema, response: null,
-  errors: { 400: '`wrong_password` naming `currentPassword`' },
+  errors: { 400: '`invalid_input` naming `currentPassword` when it is not the current password' },
 });
 
 export const requestPasswordReset = endpoint({
