@@ -7,7 +7,7 @@ const apiPort = process.env.PORT ?? '3000';
 
 export default defineConfig({
   plugins: [react(), tailwindcss()],
-  build: { outDir: 'dist', sourcemap: false },
+  build: { outDir: 'dist', sourcemap: false, manifest: true },
   server: {
     port: 5173,
     host: '127.0.0.1',

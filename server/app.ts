@@ -2,6 +2,7 @@ import { randomUUID } from 'node:crypto';
 import fs from 'node:fs';
 import path from 'node:path';
 import { fileURLToPath } from 'node:url';
+import compression from 'compression';
 import express, { type Router } from 'express';
 import session from 'express-session';
 import helmet from 'helmet';
@@ -60,6 +61,10 @@ export function createApp(input: AppInput) {
     }),
   );
 
+  // Every answer compressed (brotli where the browser takes it, else gzip): the client's
+  // JavaScript, the API's JSON and the CSV exports alike.
+  app.use(compression({ threshold: 1024 }));
+
   // Routes that need the raw body (webhook signatures) are mounted here, before the JSON parser.
   for (const r of rawBodyRouters(deps)) app.use(r);
 
@@ -99,6 +104,14 @@ export function createApp(input: AppInput) {
   });
 
   if (fs.existsSync(path.join(distDir, 'index.html'))) {
+    // Built assets carry a hash of their content in their names: cache them for a year, never
+    // revalidate. index.html names the current ones, so it is always asked for again.
+    app.use(
+      '/assets',
+      express.static(path.join(distDir, 'assets'), { index: false, immutable: true, maxAge: '365d' }),
+      // An asset of an older build is gone: say so, rather than answer with the page.
+      (_req: express.Request, res: express.Response) => void res.status(404).end(),
+    );
     app.use(express.static(distDir, { index: false, maxAge: '1h' }));
     app.get('/{*splat}', (_req, res) => {
       res.setHeader('cache-control', 'no-cache');

@@ -1,102 +1,72 @@
+import type { ComponentType } from 'react';
 import { createBrowserRouter } from 'react-router-dom';
 import { paths } from '../lib/paths';
-import { AppLayout } from './layout/app-layout';
-import { AuthLayout } from './layout/auth-layout';
 import { RouteError } from './routes/route-error';
-import { AcceptInviteRoute } from './routes/accept-invite';
-import { ForgotPasswordRoute } from './routes/forgot-password';
-import { GettingStartedRoute } from './routes/getting-started';
-import { HomeRoute } from './routes/home';
-import { NotFoundRoute } from './routes/not-found';
-import { ResetPasswordRoute } from './routes/reset-password';
-import { SettingsRoute } from './routes/settings';
-import { SignInRoute } from './routes/sign-in';
-import { SignUpRoute } from './routes/sign-up';
-import { TeamRoute } from './routes/team';
-import { MonthEndRoute } from './routes/month-end';
-import { StockCountsRoute } from './routes/stock-counts';
-import { StockCountRoute } from './routes/stock-count';
-import { WasteRoute } from './routes/waste';
-import { TillSalesRoute } from './routes/till-sales';
-import { PriceHistoryRoute } from './routes/price-history';
-import { PriceListRoute } from './routes/price-list';
-import { RepricingRoute } from './routes/repricing';
-import { CardRoute } from './routes/card';
-import { CardsRoute } from './routes/cards';
-import { DrinkEditorRoute } from './routes/drink-editor';
-import { DrinksRoute } from './routes/drinks';
-import { ModifierRoute } from './routes/modifier';
-import { ModifiersRoute } from './routes/modifiers';
-import { MenuCostingRoute } from './routes/menu-costing';
-import { IngredientRoute } from './routes/ingredient';
-import { IngredientsRoute } from './routes/ingredients';
-import { PreparationRoute } from './routes/preparation';
-import { PreparationsRoute } from './routes/preparations';
-import { PricingRoute } from './routes/pricing';
-import { SuppliersRoute } from './routes/suppliers';
-import { SupplierRoute } from './routes/supplier';
-import { StockRoute } from './routes/stock';
-import { OrdersRoute } from './routes/orders';
-import { OrderEditorRoute } from './routes/order-editor';
-import { OrderRoute } from './routes/order';
-import { OrderReceiveRoute } from './routes/order-receive';
+
+/**
+ * Each page is its own chunk, loaded when it is first opened (React Router's lazy routes): the
+ * sign-in page does not wait for the costing tables or the charts. The layouts are chunks too.
+ */
+function page<M extends Record<string, unknown>>(load: () => Promise<M>, name: keyof M & string) {
+  return { lazy: async () => ({ Component: (await load())[name] as ComponentType }) };
+}
 
 export const router = createBrowserRouter([
   {
     errorElement: <RouteError />,
     children: [
       {
-        element: <AuthLayout />,
+        ...page(() => import('./layout/auth-layout'), 'AuthLayout'),
         children: [
-          { path: paths.signIn.path, element: <SignInRoute /> },
-          { path: paths.signUp.path, element: <SignUpRoute /> },
-          { path: paths.forgotPassword.path, element: <ForgotPasswordRoute /> },
-          { path: paths.resetPassword.path, element: <ResetPasswordRoute /> },
-          { path: paths.acceptInvite.path, element: <AcceptInviteRoute /> },
+          { path: paths.signIn.path, ...page(() => import('./routes/sign-in'), 'SignInRoute') },
+          { path: paths.signUp.path, ...page(() => import('./routes/sign-up'), 'SignUpRoute') },
+          { path: paths.forgotPassword.path, ...page(() => import('./routes/forgot-password'), 'ForgotPasswordRoute') },
+          { path: paths.resetPassword.path, ...page(() => import('./routes/reset-password'), 'ResetPasswordRoute') },
+          { path: paths.acceptInvite.path, ...page(() => import('./routes/accept-invite'), 'AcceptInviteRoute') },
         ],
       },
       {
         // Signed-in pages: the layout checks the session and each section's roles.
-        element: <AppLayout />,
+        ...page(() => import('./layout/app-layout'), 'AppLayout'),
         children: [
-          { path: paths.home.path, element: <HomeRoute /> },
-          { path: paths.gettingStarted.path, element: <GettingStartedRoute /> },
-          { path: paths.team.path, element: <TeamRoute /> },
-          { path: paths.settings.path, element: <SettingsRoute /> },
-          { path: paths.drinks.path, element: <DrinksRoute /> },
-          { path: paths.newDrink.path, element: <DrinkEditorRoute /> },
-          { path: paths.drink.path, element: <DrinkEditorRoute /> },
-          { path: paths.modifiers.path, element: <ModifiersRoute /> },
-          { path: paths.newModifier.path, element: <ModifierRoute /> },
-          { path: paths.modifier.path, element: <ModifierRoute /> },
-          { path: paths.menuCosting.path, element: <MenuCostingRoute /> },
-          { path: paths.cards.path, element: <CardsRoute /> },
-          { path: paths.card.path, element: <CardRoute /> },
-          { path: paths.ingredients.path, element: <IngredientsRoute /> },
-          { path: paths.newIngredient.path, element: <IngredientRoute /> },
-          { path: paths.ingredient.path, element: <IngredientRoute /> },
-          { path: paths.preparations.path, element: <PreparationsRoute /> },
-          { path: paths.newPreparation.path, element: <PreparationRoute /> },
-          { path: paths.preparation.path, element: <PreparationRoute /> },
-          { path: paths.pricing.path, element: <PricingRoute /> },
-          { path: paths.repricing.path, element: <RepricingRoute /> },
-          { path: paths.priceList.path, element: <PriceListRoute /> },
-          { path: paths.priceHistory.path, element: <PriceHistoryRoute /> },
-          { path: paths.monthEnd.path, element: <MonthEndRoute /> },
-          { path: paths.stockCounts.path, element: <StockCountsRoute /> },
-          { path: paths.stockCount.path, element: <StockCountRoute /> },
-          { path: paths.waste.path, element: <WasteRoute /> },
-          { path: paths.tillSales.path, element: <TillSalesRoute /> },
-          { path: paths.suppliers.path, element: <SuppliersRoute /> },
-          { path: paths.newSupplier.path, element: <SupplierRoute /> },
-          { path: paths.supplier.path, element: <SupplierRoute /> },
-          { path: paths.stock.path, element: <StockRoute /> },
-          { path: paths.orders.path, element: <OrdersRoute /> },
-          { path: paths.newOrder.path, element: <OrderEditorRoute /> },
-          { path: paths.order.path, element: <OrderRoute /> },
-          { path: paths.editOrder.path, element: <OrderEditorRoute /> },
-          { path: paths.receiveOrder.path, element: <OrderReceiveRoute /> },
-          { path: '*', element: <NotFoundRoute /> },
+          { path: paths.home.path, ...page(() => import('./routes/home'), 'HomeRoute') },
+          { path: paths.gettingStarted.path, ...page(() => import('./routes/getting-started'), 'GettingStartedRoute') },
+          { path: paths.team.path, ...page(() => import('./routes/team'), 'TeamRoute') },
+          { path: paths.settings.path, ...page(() => import('./routes/settings'), 'SettingsRoute') },
+          { path: paths.drinks.path, ...page(() => import('./routes/drinks'), 'DrinksRoute') },
+          { path: paths.newDrink.path, ...page(() => import('./routes/drink-editor'), 'DrinkEditorRoute') },
+          { path: paths.drink.path, ...page(() => import('./routes/drink-editor'), 'DrinkEditorRoute') },
+          { path: paths.modifiers.path, ...page(() => import('./routes/modifiers'), 'ModifiersRoute') },
+          { path: paths.newModifier.path, ...page(() => import('./routes/modifier'), 'ModifierRoute') },
+          { path: paths.modifier.path, ...page(() => import('./routes/modifier'), 'ModifierRoute') },
+          { path: paths.menuCosting.path, ...page(() => import('./routes/menu-costing'), 'MenuCostingRoute') },
+          { path: paths.cards.path, ...page(() => import('./routes/cards'), 'CardsRoute') },
+          { path: paths.card.path, ...page(() => import('./routes/card'), 'CardRoute') },
+          { path: paths.ingredients.path, ...page(() => import('./routes/ingredients'), 'IngredientsRoute') },
+          { path: paths.newIngredient.path, ...page(() => import('./routes/ingredient'), 'IngredientRoute') },
+          { path: paths.ingredient.path, ...page(() => import('./routes/ingredient'), 'IngredientRoute') },
+          { path: paths.preparations.path, ...page(() => import('./routes/preparations'), 'PreparationsRoute') },
+          { path: paths.newPreparation.path, ...page(() => import('./routes/preparation'), 'PreparationRoute') },
+          { path: paths.preparation.path, ...page(() => import('./routes/preparation'), 'PreparationRoute') },
+          { path: paths.pricing.path, ...page(() => import('./routes/pricing'), 'PricingRoute') },
+          { path: paths.repricing.path, ...page(() => import('./routes/repricing'), 'RepricingRoute') },
+          { path: paths.priceList.path, ...page(() => import('./routes/price-list'), 'PriceListRoute') },
+          { path: paths.priceHistory.path, ...page(() => import('./routes/price-history'), 'PriceHistoryRoute') },
+          { path: paths.monthEnd.path, ...page(() => import('./routes/month-end'), 'MonthEndRoute') },
+          { path: paths.stockCounts.path, ...page(() => import('./routes/stock-counts'), 'StockCountsRoute') },
+          { path: paths.stockCount.path, ...page(() => import('./routes/stock-count'), 'StockCountRoute') },
+          { path: paths.waste.path, ...page(() => import('./routes/waste'), 'WasteRoute') },
+          { path: paths.tillSales.path, ...page(() => import('./routes/till-sales'), 'TillSalesRoute') },
+          { path: paths.suppliers.path, ...page(() => import('./routes/suppliers'), 'SuppliersRoute') },
+          { path: paths.newSupplier.path, ...page(() => import('./routes/supplier'), 'SupplierRoute') },
+          { path: paths.supplier.path, ...page(() => import('./routes/supplier'), 'SupplierRoute') },
+          { path: paths.stock.path, ...page(() => import('./routes/stock'), 'StockRoute') },
+          { path: paths.orders.path, ...page(() => import('./routes/orders'), 'OrdersRoute') },
+          { path: paths.newOrder.path, ...page(() => import('./routes/order-editor'), 'OrderEditorRoute') },
+          { path: paths.order.path, ...page(() => import('./routes/order'), 'OrderRoute') },
+          { path: paths.editOrder.path, ...page(() => import('./routes/order-editor'), 'OrderEditorRoute') },
+          { path: paths.receiveOrder.path, ...page(() => import('./routes/order-receive'), 'OrderReceiveRoute') },
+          { path: '*', ...page(() => import('./routes/not-found'), 'NotFoundRoute') },
         ],
       },
     ],

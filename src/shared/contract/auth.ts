@@ -1,6 +1,6 @@
 import { z } from 'zod';
 import { ROLES } from '../capabilities';
-import { email, text } from '../schemas/fields';
+import { email, text } from '../schemas/basic-fields';
 import { endpoint } from './endpoint';
 
 /** A password: 10–200 characters (NIST SP 800-63B asks at least 8; we ask 10). */

@@ -1,5 +1,5 @@
 import { z } from 'zod';
-import { nameOf } from '../schemas/fields';
+import { nameOf } from '../schemas/basic-fields';
 import { businessSchema, countryCode, currencyCode, taxMode, timeZone } from './auth';
 import { endpoint } from './endpoint';
 

@@ -1,5 +1,5 @@
 import { z } from 'zod';
-import { nameOf } from '../schemas/fields';
+import { nameOf } from '../schemas/basic-fields';
 import { endpoint } from './endpoint';
 
 export const siteSchema = z.object({ id: z.uuid(), name: z.string() });

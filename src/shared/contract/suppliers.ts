@@ -1,5 +1,5 @@
 import { z } from 'zod';
-import { nameOf, optionalEmail, optionalText } from '../schemas/fields';
+import { nameOf, optionalEmail, optionalText } from '../schemas/basic-fields';
 import { endpoint } from './endpoint';
 
 /** A supplier as every supplier route answers it: its details and its ordering terms. */

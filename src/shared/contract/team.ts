@@ -1,6 +1,6 @@
 import { z } from 'zod';
 import { ROLES } from '../capabilities';
-import { email } from '../schemas/fields';
+import { email } from '../schemas/basic-fields';
 import { endpoint } from './endpoint';
 
 export const memberSchema = z.object({ id: z.uuid(), email: z.string(), name: z.string(), role: z.enum(ROLES) });
