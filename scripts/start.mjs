@@ -18,7 +18,7 @@ const env = {
 };
 
 if (run(bin('tsx'), ['scripts/db.ts', 'seed-once'], env) !== 0) await stopAll(1);
-if (run(bin('vite'), ['build', '--logLevel', 'warn']) !== 0) await stopAll(1);
+if (run(bin('vite'), ['build', '--logLevel', 'warn'], { NODE_ENV: 'production' }) !== 0) await stopAll(1);
 
 for (const fake of ['mail', 'payments']) {
   const main = path.join(root, 'fakes', fake, 'main.ts');

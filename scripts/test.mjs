@@ -32,12 +32,13 @@ if (checks.some((c) => c !== 0)) {
   console.error('✖ typecheck or lint failed');
   process.exit(1);
 }
-for (const [name, cmd, args] of [
-  ['build', bin('vite'), ['build', '--logLevel', 'warn']],
-  ['tests', bin('vitest'), ['run', ...process.argv.slice(2)]],
+// The client is built as it ships (NODE_ENV=test would give React's development build).
+for (const [name, cmd, args, nodeEnv] of [
+  ['build', bin('vite'), ['build', '--logLevel', 'warn'], 'production'],
+  ['tests', bin('vitest'), ['run', ...process.argv.slice(2)], 'test'],
 ]) {
   console.log(`\n▶ ${name}`);
-  const code = run(cmd, args, { NODE_ENV: 'test' });
+  const code = run(cmd, args, { NODE_ENV: nodeEnv });
   if (code !== 0) {
     console.error(`✖ ${name} failed`);
     process.exit(code);

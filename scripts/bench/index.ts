@@ -18,6 +18,13 @@ import { seedLargeMenu } from './large-menu';
 import { measure, ms, row } from './measure';
 import { touchCosting } from './touch';
 
+// `npm run bench -- client` runs the client section alone (sizes and Lighthouse).
+if (process.argv.slice(2).includes('client')) {
+  const { run } = await import('./client.section');
+  await run();
+  process.exit(0);
+}
+
 const cluster = await startThrowawayCluster();
 const stop = () => cluster.stop();
 process.once('SIGINT', () => { stop(); process.exit(130); });
