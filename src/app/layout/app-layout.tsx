@@ -6,7 +6,7 @@ import { Skeleton, SkeletonRows } from '../../components/ui/skeleton';
 import { paths } from '../../lib/paths';
 import { useMe } from '../../features/auth/api/get-me';
 import { useBusiness } from '../../features/business/api/get-business';
-import { entryForPath } from '../navigation';
+import { entryForPath, mayOpen } from '../navigation';
 import { SideNav } from './side-nav';
 import { SiteSwitcher } from './site-switcher';
 import { UserMenu } from './user-menu';
@@ -66,7 +66,7 @@ export function AppLayout() {
   const { user } = me.data;
   const businessName = business.data?.name ?? me.data.business.name;
   const section = entryForPath(location.pathname);
-  const allowed = !section || section.roles.includes(user.role);
+  const allowed = !section || mayOpen(user.role, section);
   const barista = user.role === 'barista';
 
   return (
