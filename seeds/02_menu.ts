@@ -6,7 +6,7 @@ import { DEMO } from './01_tenancy';
 // packs and prices, three preparations (one nested in another), twenty-odd drinks with a build
 // per size, modifiers and a pricing policy; and a small menu for the second (US) business.
 // Prices are invented for the demo. Densities come from USDA FoodData Central (see
-// /work/shared/trade-checks.md, secondary); pump and shot sizes are common practice, no source.
+// tests/SOURCES.md, secondary); pump and shot sizes are common practice, no source.
 
 const id = (n: number) => `0d1e6a52-5f0c-4c3a-9a51-1c7a2f${String(n).padStart(6, '0')}`;
 

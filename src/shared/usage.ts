@@ -58,7 +58,7 @@ export function addUsage(into: Usage, usage: ReadonlyMap<string, Dec>, times: De
  *   mass ↔ volume through the item's density), a measure by its own quantity and unit first;
  * - an ingredient: stock usage = that quantity ÷ (yield ÷ 100), because a recipe line says what
  *   goes into the cup (the usable, edible portion) and the trimmings, spills or purge left
- *   behind come out of stock too (edible portion = as purchased × yield: trade-checks.md,
+ *   behind come out of stock too (edible portion = as purchased × yield: tests/SOURCES.md,
  *   "Cost control");
  * - a preparation: each of its lines × (the quantity ÷ its batch yield in base units), nested
  *   preparations the same way, each preparation's usage per base unit worked out once.
