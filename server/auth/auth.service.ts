@@ -1,13 +1,15 @@
 import type { z } from 'zod';
 import type { signupSchema } from '../../src/shared/contract/auth';
 import type { Business } from '../../src/shared/contract/auth';
+import { countryDefaults } from '../../src/shared/countries';
+import { minorUnitStep } from '../../src/shared/money';
 import type { AppDeps } from '../platform/deps';
 import { badRequest, conflict, invalidInput, notFound } from '../platform/errors';
 import { hashPassword, hashToken, newToken, verifyPassword } from './passwords';
 import type { SessionUser } from './roles';
 import {
   claimInvitation, claimPasswordReset, endSessionsOf, expireResetsOf, findBusinessRow, findOpenInvitation, findUserByEmail, findUserById,
-  insertBusiness, insertPasswordReset, insertUser, resetsSentWithinHour, setPasswordHash, toSessionUser, type BusinessRow,
+  insertBusiness, insertPasswordReset, insertStartingPolicy, insertUser, resetsSentWithinHour, setPasswordHash, toSessionUser, type BusinessRow,
 } from './users.repo';
 
 const RESET_HOURS = 2;
@@ -16,7 +18,7 @@ const RESETS_PER_HOUR = 3;
 export const INVITE_DAYS = 7;
 
 export function presentBusiness(b: BusinessRow): Business {
-  return { id: b.id, name: b.name, country: b.country, currency: b.currency, taxMode: b.tax_mode, timeZone: b.time_zone };
+  return { id: b.id, name: b.name, country: b.country, currency: b.currency, taxMode: b.tax_mode, taxName: b.tax_name, timeZone: b.time_zone };
 }
 
 export async function businessOf({ db }: Pick<AppDeps, 'db'>, businessId: string): Promise<Business> {
@@ -31,8 +33,15 @@ export async function signup({ db }: AppDeps, input: z.output<typeof signupSchem
   }
   const passwordHash = await hashPassword(input.password);
   return db.transaction(async (trx) => {
+    const country = countryDefaults(input.country);
     const b = await insertBusiness(trx, {
-      name: input.businessName, country: input.country, currency: input.currency, tax_mode: input.taxMode, time_zone: input.timeZone ?? 'Europe/London',
+      name: input.businessName, country: input.country, currency: input.currency, tax_mode: input.taxMode,
+      tax_name: input.taxName ?? country?.taxName ?? 'Tax', time_zone: input.timeZone ?? 'Europe/London',
+    });
+    await insertStartingPolicy(trx, b.id, {
+      taxMode: input.taxMode,
+      taxRatePct: input.taxRatePct ?? country?.standardRatePct ?? '0',
+      priceStep: minorUnitStep(input.currency).times(5).toFixed(),
     });
     await trx('sites').insert({ business_id: b.id, name: input.siteName });
     return toSessionUser(await insertUser(trx, { business_id: b.id, email: input.email, name: input.name, role: 'owner', password_hash: passwordHash }));

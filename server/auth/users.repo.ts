@@ -44,16 +44,25 @@ export interface BusinessRow {
   country: string;
   currency: string;
   tax_mode: 'inclusive' | 'exclusive';
+  tax_name: string;
   time_zone: string;
 }
 
 export async function findBusinessRow(db: Knex, businessId: string): Promise<BusinessRow | undefined> {
-  return db<BusinessRow>('businesses').where({ id: businessId }).first('id', 'name', 'country', 'currency', 'tax_mode', 'time_zone');
+  return db<BusinessRow>('businesses').where({ id: businessId }).first('id', 'name', 'country', 'currency', 'tax_mode', 'tax_name', 'time_zone');
 }
 
 export async function insertBusiness(db: Knex, row: Omit<BusinessRow, 'id'>): Promise<BusinessRow> {
-  const [b] = await db<BusinessRow>('businesses').insert(row).returning(['id', 'name', 'country', 'currency', 'tax_mode', 'time_zone']);
+  const [b] = await db<BusinessRow>('businesses').insert(row).returning(['id', 'name', 'country', 'currency', 'tax_mode', 'tax_name', 'time_zone']);
   return b;
+}
+
+/**
+ * A new business's pricing policy: the country's tax at its standard rate (or the owner's), a
+ * 70 % target margin, prices rounded up to five of the currency's minor units.
+ */
+export async function insertStartingPolicy(db: Knex, businessId: string, p: { taxMode: 'inclusive' | 'exclusive'; taxRatePct: string; priceStep: string }): Promise<void> {
+  await db('pricing_policies').insert({ business_id: businessId, category: null, target_margin_pct: '70', tax_mode: p.taxMode, tax_rate_pct: p.taxRatePct, price_step: p.priceStep, rounding: 'up' });
 }
 
 export async function insertPasswordReset(db: Knex, userId: string, tokenHash: string, hours: number): Promise<void> {

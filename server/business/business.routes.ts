@@ -30,6 +30,7 @@ export function businessRoutes(deps: AppDeps) {
     if (body.currency !== undefined) patch.currency = body.currency;
     if (body.taxMode !== undefined) patch.tax_mode = body.taxMode;
     if (body.timeZone !== undefined) patch.time_zone = body.timeZone;
+    if (body.taxName !== undefined) patch.tax_name = body.taxName;
     await repo.updateBusiness(db, user.businessId, patch);
     return { business: await businessOf(deps, user.businessId) };
   });

@@ -127,3 +127,36 @@ describe('the reset answer does not wait for the account lookup or the e-mail', 
     }
   });
 });
+
+describe('the country sets the defaults of a new business', () => {
+  const signup = (country: string, extra: Record<string, string> = {}) =>
+    request.agent(ctx.app).post('/api/auth/signup').send({
+      name: 'Rowan Vale', email: `new-${suffix()}@example.test`, password: 'a-long-password', businessName: 'Vale Beans', siteName: 'Quay',
+      country, currency: country === 'US' ? 'USD' : 'GBP', taxMode: country === 'US' ? 'exclusive' : 'inclusive', ...extra,
+    });
+
+  test('a UK business starts with VAT at the standard 20 % (HMRC; tests/SOURCES.md), never 0 %', async () => {
+    const agent = request.agent(ctx.app);
+    const res = await agent.post('/api/auth/signup').send({ name: 'Rowan Vale', email: `uk-${suffix()}@example.test`, password: 'a-long-password', businessName: 'Vale Beans', siteName: 'Quay', country: 'GB', currency: 'GBP', taxMode: 'inclusive', timeZone: 'Europe/London' });
+    expect(res.status).toBe(201);
+    expect(res.body.business).toMatchObject({ country: 'GB', taxName: 'VAT', taxMode: 'inclusive', timeZone: 'Europe/London' });
+    const policy = await ctx.db('pricing_policies').where({ business_id: res.body.business.id }).whereNull('category').first();
+    expect(Number(policy.tax_rate_pct)).toBe(20);
+    expect(policy.tax_mode).toBe('inclusive');
+  });
+
+  test("the owner's own rate and tax name are kept; a US business adds sales tax at the rate its owner sets", async () => {
+    const own = await signup('GB', { taxRatePct: '5', taxName: 'VAT (reduced)' });
+    expect(own.body.business.taxName).toBe('VAT (reduced)');
+    expect(Number((await ctx.db('pricing_policies').where({ business_id: own.body.business.id }).first()).tax_rate_pct)).toBe(5);
+    const us = await signup('US', { taxRatePct: '6.25' });
+    expect(us.body.business).toMatchObject({ taxName: 'Sales tax', taxMode: 'exclusive' });
+    expect(Number((await ctx.db('pricing_policies').where({ business_id: us.body.business.id }).first()).tax_rate_pct)).toBe(6.25);
+  });
+
+  test('a rate that is not a rate is refused, naming the field', async () => {
+    const res = await signup('GB', { taxRatePct: '120' });
+    expect(res.status).toBe(400);
+    expect(Object.keys(res.body.error.fields)).toEqual(['taxRatePct']);
+  });
+});

@@ -28,6 +28,8 @@ export const businessSchema = z.object({
   country: z.string(),
   currency: z.string(),
   taxMode: z.enum(TAX_MODES),
+  /** The tax's own name there: VAT, GST, sales tax. */
+  taxName: z.string(),
   /** IANA time zone: the business's "today", months and dates are its own. */
   timeZone: z.string(),
 });
@@ -126,6 +128,12 @@ export const timeZone = z
     }
   }, 'Choose a time zone such as Europe/London.');
 export const taxMode = z.enum(TAX_MODES, { error: 'Choose whether menu prices include tax.' });
+export const taxName = text({ min: 1, max: 40 }).pipe(z.string().min(1, 'Name the tax (VAT, GST, sales tax).'));
+/** A tax rate in %, 0 to 100 with at most 4 decimals (the pricing policy's numeric(7, 4)); a plain check, no decimal.js. */
+export const taxRatePct = z
+  .string({ error: 'Enter the rate as a number, e.g. 20.' })
+  .regex(/^\d{1,3}(\.\d{1,4})?$/, 'Enter the rate as a number, e.g. 20 or 6.25.')
+  .refine((s) => Number(s) <= 100, 'A rate is at most 100 %.');
 
 export const signupSchema = z.object({
   name: text({ what: 'person', min: 1, max: 120 }).pipe(z.string().min(1, 'Enter your name.')),
@@ -138,6 +146,10 @@ export const signupSchema = z.object({
   taxMode,
   /** The browser's time zone at sign-up; the owner can change it in the settings. */
   timeZone: timeZone.optional(),
+  /** The tax's name there; the country's own when left out. */
+  taxName: taxName.optional(),
+  /** The tax rate menu prices are worked out with; the country's standard rate when left out (0 where there is none). */
+  taxRatePct: taxRatePct.optional(),
 });
 
 export const signup = endpoint({

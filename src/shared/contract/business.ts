@@ -1,10 +1,10 @@
 import { z } from 'zod';
 import { nameOf } from '../schemas/basic-fields';
-import { businessSchema, countryCode, currencyCode, taxMode, timeZone } from './auth';
+import { businessSchema, countryCode, currencyCode, taxMode, taxName, timeZone } from './auth';
 import { endpoint } from './endpoint';
 
 export const businessPatchSchema = z
-  .object({ name: nameOf('business'), country: countryCode, currency: currencyCode, taxMode, timeZone })
+  .object({ name: nameOf('business'), country: countryCode, currency: currencyCode, taxMode, taxName, timeZone })
   .partial();
 
 export const getBusiness = endpoint({

@@ -12,7 +12,7 @@ async function newInvitation(f: RouteFixture) {
   return i.id as string;
 }
 
-const signupBody = () => ({ name: 'N', email: `su-${suffix()}@example.test`, password: TEST_PASSWORD, businessName: 'B', siteName: 'S', country: 'GB', currency: 'GBP', taxMode: 'inclusive', timeZone: 'Europe/London' });
+const signupBody = () => ({ name: 'N', email: `su-${suffix()}@example.test`, password: TEST_PASSWORD, businessName: 'B', siteName: 'S', country: 'GB', currency: 'GBP', taxMode: 'inclusive', timeZone: 'Europe/London', taxName: 'VAT', taxRatePct: '20' });
 
 export const routes: RouteCase[] = [
   { method: 'get', path: '/api/health' },
@@ -36,5 +36,5 @@ export const routes: RouteCase[] = [
   { method: 'post', path: '/api/sites', body: () => ({ name: `Site ${suffix()}` }) },
   { method: 'patch', path: '/api/sites/:id', url: (f) => `/api/sites/${f.biz.siteIds[1]}`, body: () => ({ name: `Renamed ${suffix()}` }) },
   { method: 'get', path: '/api/business' },
-  { method: 'patch', path: '/api/business', body: () => ({ name: `Biz ${suffix()}` }), fullBody: () => ({ name: `Biz ${suffix()}`, country: 'GB', currency: 'GBP', taxMode: 'inclusive', timeZone: 'Europe/London' }) },
+  { method: 'patch', path: '/api/business', body: () => ({ name: `Biz ${suffix()}` }), fullBody: () => ({ name: `Biz ${suffix()}`, country: 'GB', currency: 'GBP', taxMode: 'inclusive', taxName: 'VAT', timeZone: 'Europe/London' }) },
 ];
