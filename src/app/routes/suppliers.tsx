@@ -1,8 +1,7 @@
 import { ButtonLink } from '../../components/ui/button';
 import { EmptyState } from '../../components/ui/empty-state';
-import { ErrorState } from '../../components/ui/error-state';
 import { PageHeader } from '../../components/ui/page-header';
-import { SkeletonRows } from '../../components/ui/skeleton';
+import { QueryView } from '../../components/ui/query-view';
 import { paths } from '../../lib/paths';
 import { useMe } from '../../features/auth/api/get-me';
 import { useContractQuery } from '../../lib/contract';
@@ -19,15 +18,16 @@ export function SuppliersRoute() {
   return (
     <div className="flex max-w-6xl flex-col gap-6">
       <PageHeader title="Suppliers" description="Who you buy from, where their orders go, their minimum, the days they deliver and how they are paid." action={add} />
-      {suppliers.isPending ? (
-        <SkeletonRows rows={4} label="Loading the suppliers" />
-      ) : suppliers.isError ? (
-        <ErrorState error={suppliers.error} onRetry={() => suppliers.refetch()} />
-      ) : suppliers.data.suppliers.length === 0 ? (
-        <EmptyState title="No suppliers yet" next="Add the dairy, roaster or wholesaler you order from, with the e-mail address their orders go to." action={add} />
-      ) : (
-        <SuppliersTable suppliers={suppliers.data.suppliers} currency={currency} />
-      )}
+      <QueryView
+        query={suppliers}
+        loading="Loading the suppliers"
+        empty={{
+          when: (d) => d.suppliers.length === 0,
+          state: <EmptyState title="No suppliers yet" next="Add the dairy, roaster or wholesaler you order from, with the e-mail address their orders go to." action={add} />,
+        }}
+      >
+        {(d) => <SuppliersTable suppliers={d.suppliers} currency={currency} />}
+      </QueryView>
     </div>
   );
 }

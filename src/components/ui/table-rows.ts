@@ -55,3 +55,14 @@ export function matchesSearch(query: string, ...texts: (string | null | undefine
 function fold(s: string): string {
   return s.normalize('NFD').replace(/\p{Diacritic}/gu, '').toLowerCase();
 }
+
+/**
+ * Two present sort values in order: whole numbers numerically, numbers and decimal strings
+ * exactly (decimal.js), anything else by the locale's collation with digit runs read as numbers.
+ */
+export function compareSortValues(a: SortValue, b: SortValue): number {
+  if (typeof a === 'number' && typeof b === 'number') return a - b;
+  const exact = (v: SortValue): v is string | number => typeof v === 'number' || isDecimalString(v);
+  if (exact(a) && exact(b)) return asDecimal(a).cmp(asDecimal(b));
+  return collator.compare(String(a ?? ''), String(b ?? ''));
+}

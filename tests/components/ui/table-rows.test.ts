@@ -61,3 +61,14 @@ describe('matchesSearch', () => {
     expect(matchesSearch('oat', null, undefined, 'Oat milk')).toBe(true);
   });
 });
+
+describe('compareSortValues (the DataTable column order)', () => {
+  test('orders decimal strings exactly, whole numbers numerically and text by the locale with digit runs as numbers', async () => {
+    const { compareSortValues } = await import('../../../src/components/ui/table-rows');
+    const sorted = (vs: (string | number)[]) => [...vs].sort(compareSortValues);
+    // 0.1 + 0.2 ≠ 0.3 in binary floats; as decimals "0.30000000000000001" > "0.3" exactly.
+    expect(sorted(['0.30000000000000001', '0.3', '-0.60', '10.05', '2'])).toEqual(['-0.60', '0.3', '0.30000000000000001', '2', '10.05']);
+    expect(sorted([10, 9, 100])).toEqual([9, 10, 100]);
+    expect(sorted(['Size 10', 'Size 9', 'oat drink', 'Oat drink 2'])).toEqual(['oat drink', 'Oat drink 2', 'Size 9', 'Size 10']);
+  });
+});
