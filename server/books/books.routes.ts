@@ -67,7 +67,13 @@ export function booksRouters(deps: AppDeps): Router[] {
     },
     { before: [receiveFile(deps)] },
   );
-  on(books.previewImport, ({ user, params, body }) => sales.previewImport(deps, user.businessId, params.id, body.columns));
+  on(books.previewImport, async ({ user, params, body, res }) => {
+    // The answer is written as JSON in the worker thread that read the file (and checked there
+    // against the contract when responses are checked), so it is sent as it comes.
+    const json = await sales.previewImport(deps, user.businessId, params.id, body.columns);
+    res.status(200).type('application/json').send(json);
+    return answeredAbove<books.ImportPreview>();
+  });
   on(books.acceptImport, async ({ user, params, body }) => ({ import: await sales.acceptImport(deps, user.businessId, params.id, body) }));
   on(books.discardImport, ({ user, params }) => sales.discardImport(deps, user.businessId, params.id));
   on(books.salesDays, ({ user, query }) => sales.salesDays(deps, user.businessId, query));
@@ -75,6 +81,9 @@ export function booksRouters(deps: AppDeps): Router[] {
   on(books.saveSalesDay, ({ user, body }) => sales.saveManualDay(deps, user.businessId, body));
   return [r];
 }
+
+/** For a handler that wrote the response itself (the mount then sends nothing more). */
+const answeredAbove = <T>(): T => undefined as T;
 
 /**
  * The till file, in memory (it is kept in the database until accepted), one file and a few

@@ -59,8 +59,22 @@ export async function lockImport(db: Knex, businessId: string, id: string, lock:
   return q.first('id', 'site_id', 'status', 'file_sha256', 'first_day', 'last_day');
 }
 
-export async function pendingText(db: Knex, importId: string): Promise<string | undefined> {
-  return (await db('sales_import_files').where({ import_id: importId }).first('content'))?.content as string | undefined;
+/** Characters of a pending file read per query: a few milliseconds of work on the event loop each. */
+const SLICE = 512 * 1024;
+
+/**
+ * A pending file's text in slices (one query each), so a 10 MB file never arrives as one
+ * message the event loop must take in at once; undefined when the file is gone.
+ */
+export async function pendingTextSlices(db: Knex, importId: string): Promise<string[] | undefined> {
+  const row = await db('sales_import_files').where({ import_id: importId }).first(db.raw('length(content)::int as n'));
+  if (!row) return undefined;
+  const parts: string[] = [];
+  for (let from = 1; from <= Math.max(row.n as number, 1); from += SLICE) {
+    const slice = await db('sales_import_files').where({ import_id: importId }).first(db.raw('substr(content, ?, ?) as part', [from, SLICE]));
+    parts.push(slice.part as string);
+  }
+  return parts;
 }
 
 /** The business's live drink sizes, by drink and cup size. */

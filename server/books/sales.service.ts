@@ -2,7 +2,7 @@ import { createHash } from 'node:crypto';
 import { fileTypeFromBuffer } from 'file-type';
 import type { z } from 'zod';
 import { monthBounds, monthOf } from '../../src/shared/books';
-import type { acceptImportSchema, ColumnMapping, ImportPreview, ManualDay, manualDayInSchema, SalesDay, SalesImport, UploadResult } from '../../src/shared/contract/books';
+import type { acceptImportSchema, ColumnMapping, ManualDay, manualDayInSchema, SalesDay, SalesImport, UploadResult } from '../../src/shared/contract/books';
 import { formatFieldPath } from '../../src/shared/schemas/field-errors';
 import { hasControlCharacters } from '../../src/shared/schemas/fields';
 import type { AppDeps } from '../platform/deps';
@@ -10,10 +10,10 @@ import { AppError, badRequest, conflict, invalidInput, notFound } from '../platf
 import { assertOwnedIds } from '../platform/ownership';
 import { currencyOf } from './books.repo';
 import { assertMonthOpen, assertRangeOpen, isMonthClosed } from './periods.service';
-import { presentDays, presentImport, presentManualDay, presentPreview } from './sales.presenter';
+import { presentDays, presentImport, presentManualDay } from './sales.presenter';
 import {
   acceptedRepeat, dayTotals, deleteManualLines, drinkSizeChoices, findImport, importedLineCount, insertPendingImport, insertSalesLines, itemMappings,
-  listImportRows, lockImport, manualLines, markAccepted, markDiscarded, pendingText, rememberColumns, rememberedColumns, rememberItemMapping,
+  listImportRows, lockImport, manualLines, markAccepted, markDiscarded, pendingTextSlices, rememberColumns, rememberedColumns, rememberItemMapping,
 } from './sales.repo';
 import { siteFromInput } from './sites';
 import { guessMapping, readHeader, TillFileError } from './till-csv';
@@ -70,8 +70,6 @@ async function refuseRepeat(db: Knex, businessId: string, siteId: string, match:
   }
 }
 
-const REQUIRED: (keyof ColumnMapping)[] = ['date', 'item', 'quantity', 'netSales'];
-
 /**
  * Step 1: a till file arrives. Checked to be CSV text, refused when an accepted file of the site
  * already holds it (the same bytes, or — read with the remembered columns — the same rows), and
@@ -88,7 +86,7 @@ export async function uploadImport({ db }: AppDeps, businessId: string, userId: 
   const fits = Boolean(saved && [saved.date, saved.item, saved.quantity, saved.netSales, saved.size, saved.tax].every((h) => !h || headers.includes(h)));
   const columns = fits ? (saved as ColumnMapping) : guessMapping(headers);
   if (fits) {
-    const read = await inWorker({ text, columns: columns as ColumnMapping, want: 'fingerprint' });
+    const read = await inWorker({ textParts: [text], columns: columns as ColumnMapping, want: 'fingerprint' });
     await refuseRepeat(db, businessId, siteId, { rowsSha256: read.fingerprint });
   }
   const filename = [...file.originalname.normalize('NFC')].filter((ch) => !hasControlCharacters(ch, false)).join('').trim().slice(0, 200) || 'sales.csv';
@@ -100,18 +98,23 @@ async function pendingFile(db: Knex, businessId: string, id: string, lock = fals
   const imp = await lockImport(db, businessId, id, lock);
   if (!imp) throw notFound('That import');
   if (imp.status !== 'pending') throw conflict('import_not_pending', imp.status === 'accepted' ? 'This import is already accepted.' : 'This import was discarded: upload the file again.');
-  const text = await pendingText(db, id);
-  if (text === undefined) throw conflict('import_not_pending', 'The file of this import is gone: upload it again.');
-  return { imp, text };
+  const textParts = await pendingTextSlices(db, id);
+  if (textParts === undefined) throw conflict('import_not_pending', 'The file of this import is gone: upload it again.');
+  return { imp, textParts };
 }
 
-/** Step 2: the file read with a column mapping (in a worker thread): line-numbered errors, totals and the till's items. Saves nothing. */
-export async function previewImport({ db }: AppDeps, businessId: string, id: string, columns: ColumnMapping): Promise<ImportPreview> {
-  const { imp, text } = await pendingFile(db, businessId, id);
+/**
+ * Step 2: the file read with a column mapping: line-numbered errors, totals and the till's
+ * items. Saves nothing. The file is read from the database in slices and everything else —
+ * reading, matching, presenting, checking against the contract, writing the JSON — happens in
+ * a worker thread, so the answer comes back as the JSON text to send.
+ */
+export async function previewImport({ db, config }: AppDeps, businessId: string, id: string, columns: ColumnMapping): Promise<string> {
+  const { imp, textParts } = await pendingFile(db, businessId, id);
   const [known, choices, currency] = await Promise.all([itemMappings(db, businessId), drinkSizeChoices(db, businessId), currencyOf(db, businessId)]);
-  const read = await inWorker({ text, columns, want: 'preview', known, choices });
+  const read = await inWorker({ textParts, columns, want: 'preview', known, choices, currency, checkResponse: config.checkResponses });
   await refuseRepeat(db, businessId, imp.site_id, { rowsSha256: read.fingerprint });
-  return presentPreview(read.preview!, currency, choices);
+  return read.previewJson as string;
 }
 
 /**
@@ -125,8 +128,8 @@ export async function acceptImport({ db }: AppDeps, businessId: string, id: stri
   await assertOwnedIds(db, businessId, 'drink_sizes', input.items.map((m, i) => ({ field: formatFieldPath(['items', i, 'drinkSizeId']), id: m.drinkSizeId })), 'Choose one of your drinks and sizes.');
   try {
     return await db.transaction(async (trx) => {
-      const { imp, text } = await pendingFile(trx, businessId, id, true);
-      const read = await inWorker({ text, columns: input.columns, want: 'rows' });
+      const { imp, textParts } = await pendingFile(trx, businessId, id, true);
+      const read = await inWorker({ textParts, columns: input.columns, want: 'rows' });
       const rows = read.rows!;
       if (read.errorCount) {
         const fields: Record<string, string> = {};

@@ -1,6 +1,8 @@
 import { createHash } from 'node:crypto';
 import { D, dec, type Dec } from '../../src/shared/decimal';
-import type { ColumnMapping } from '../../src/shared/contract/books';
+import { importPreviewSchema, type ColumnMapping } from '../../src/shared/contract/books';
+import { zodFieldErrors } from '../../src/shared/schemas/field-errors';
+import { presentPreview } from './sales.presenter';
 import { readHeader, readRows, similarity, TillFileError, type LineError, type TillRow } from './till-csv';
 
 /**
@@ -18,13 +20,17 @@ export interface DrinkSizeChoice {
 }
 
 export interface TillTaskInput {
-  text: string;
+  /** The file's text, in the slices it was read in. */
+  textParts: string[];
   columns: ColumnMapping;
   /** What to answer besides the rows' fingerprint: the preview, the rows themselves, or nothing more. */
   want: 'preview' | 'rows' | 'fingerprint';
   /** Till item → drink size remembered by the business: [item, size, drinkSizeId]. */
   known?: [string, string, string][];
   choices?: DrinkSizeChoice[];
+  /** For a preview: the business's currency, and whether to check the answer against the contract (tests, development). */
+  currency?: string;
+  checkResponse?: boolean;
 }
 
 export interface ItemSummary {
@@ -49,7 +55,17 @@ export interface TillPreview {
 }
 
 export type TillTaskResult =
-  | { ok: true; fingerprint: string | null; errorCount: number; errors: LineError[]; firstDay: string | null; lastDay: string | null; preview?: TillPreview; rows?: TillRow[] }
+  | {
+      ok: true;
+      fingerprint: string | null;
+      errorCount: number;
+      errors: LineError[];
+      firstDay: string | null;
+      lastDay: string | null;
+      /** A preview's answer, presented and written as JSON here, off the event loop (thousands of items take a while). */
+      previewJson?: string;
+      rows?: TillRow[];
+    }
   | { ok: false; code: 'not_csv' | 'invalid_input'; message: string; field?: string };
 
 /** Errors listed in a preview: enough to fix a file, never a megabyte of them. */
@@ -121,16 +137,23 @@ function summariseItems(rows: readonly TillRow[], known: [string, string, string
 
 export function runTillTask(input: TillTaskInput): TillTaskResult {
   try {
-    const { headers } = readHeader(input.text);
-    const { rows, errors } = readRows(input.text, input.columns, headers);
+    const text = input.textParts.join('');
+    const { headers } = readHeader(text);
+    const { rows, errors } = readRows(text, input.columns, headers);
     const { first, last } = daysOf(rows);
     const base = { ok: true as const, fingerprint: errors.length ? null : rowsFingerprint(rows), errorCount: errors.length, errors: errors.slice(0, ERRORS_SHOWN), firstDay: first, lastDay: last };
     if (input.want === 'fingerprint') return base;
     if (input.want === 'rows') return { ...base, rows };
     let net = new D(0);
     for (const r of rows) net = net.plus(dec(r.netSales));
-    const items = summariseItems(rows, input.known ?? [], input.choices ?? []);
-    return { ...base, preview: { rowCount: rows.length, errorCount: errors.length, errors: base.errors, firstDay: first, lastDay: last, netSales: net.toFixed(), items } };
+    const choices = input.choices ?? [];
+    const items = summariseItems(rows, input.known ?? [], choices);
+    const preview = presentPreview({ rowCount: rows.length, errorCount: errors.length, errors: base.errors, firstDay: first, lastDay: last, netSales: net.toFixed(), items }, input.currency ?? 'GBP', choices);
+    if (input.checkResponse) {
+      const checked = importPreviewSchema.safeParse(preview);
+      if (!checked.success) throw new Error(`the import preview answered outside its contract: ${JSON.stringify(zodFieldErrors(checked.error))}`);
+    }
+    return { ...base, previewJson: JSON.stringify(preview) };
   } catch (e) {
     if (e instanceof TillFileError) return { ok: false, code: e.code, message: e.message, field: e.field };
     throw e;
