@@ -66,7 +66,7 @@ async function refuseRepeat(db: Knex, businessId: string, siteId: string, match:
   const prior = await acceptedRepeat(db, businessId, siteId, match);
   if (prior) {
     const when = new Date(prior.accepted_at).toISOString().slice(0, 10);
-    throw conflict('already_imported', `These sales are already in "${prior.filename}", accepted for this site on ${when}; its sales are counted once.`);
+    throw conflict('already_imported', `These sales were already imported for this site in "${prior.filename}" on ${when}; they are counted once.`);
   }
 }
 

@@ -155,7 +155,6 @@ export function WasteForm({ siteId, choices, entries, currency }: { siteId: stri
                   {saved.problem ? ` (${saved.problem})` : ''}
                 </>
               )}
-              .
             </span>
           )}
         </p>
