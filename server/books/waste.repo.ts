@@ -1,5 +1,6 @@
 import type { Knex } from 'knex';
 import type { BuildLineRow } from '../costing/cost-model.repo';
+import type { WasteRow } from './cogs.repo';
 
 // Plain rows for the waste log.
 
@@ -26,18 +27,8 @@ export async function recordedBy(db: Knex, ids: readonly string[]): Promise<Map<
   return new Map(rows.map((r: { id: string; name: string | null }) => [r.id, r.name]));
 }
 
-export interface NewWaste {
-  business_id: string;
-  site_id: string;
-  occurred_on: string;
-  ingredient_id: string | null;
-  preparation_id: string | null;
-  drink_size_id: string | null;
-  quantity: string;
-  unit: string | null;
-  reason: string;
-  recorded_by: string;
-}
+/** A waste entry to write: the row as the report reads it, with its business and who recorded it. */
+export type NewWaste = Omit<WasteRow, 'id'> & { business_id: string; recorded_by: string };
 
 export async function insertWaste(db: Knex, row: NewWaste): Promise<{ id: string; occurred_on: string }> {
   const [out] = await db('waste_entries').insert(row).returning(['id', 'occurred_on']);
