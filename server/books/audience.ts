@@ -1,6 +1,5 @@
 import type { Knex } from 'knex';
-import type { SessionUser } from '../auth/roles';
-import { seesCosts } from '../../src/shared/capabilities';
+import { seesCosts, type Role } from '../../src/shared/capabilities';
 import { currencyOf } from './books.repo';
 
 /**
@@ -13,6 +12,6 @@ export interface Audience {
   currency: string | null;
 }
 
-export async function audienceOf(db: Knex, user: Pick<SessionUser, 'role' | 'businessId'>): Promise<Audience> {
+export async function audienceOf(db: Knex, user: { role: Role; businessId: string }): Promise<Audience> {
   return { currency: seesCosts(user.role) ? await currencyOf(db, user.businessId) : null };
 }

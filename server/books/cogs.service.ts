@@ -8,7 +8,8 @@ import { listSites } from './books.repo';
 import { frozenReport } from './periods.repo';
 import { loadMonthCosting } from './month-costing';
 import { ensureRecipeCosts, type KnownCostingState } from './recipe-costs.service';
-import { valueWaste, type WasteValue } from './waste.service';
+import { valueWaste } from './waste.service';
+import type { WasteValue } from './waste.presenter';
 import { cacheFor } from '../platform/versions';
 import { invalidInput } from '../platform/errors';
 

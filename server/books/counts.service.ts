@@ -1,5 +1,5 @@
 import type { z } from 'zod';
-import type { SessionUser } from '../auth/roles';
+import type { Role } from '../../src/shared/capabilities';
 import type { countInSchema, countLineSchema, CountSheet, StockCount } from '../../src/shared/contract/books';
 import { dec } from '../../src/shared/decimal';
 import { conversionFactor, UnitConversionError } from '../../src/shared/units';
@@ -12,8 +12,8 @@ import { countTotals, deleteCountRow, findCountRow, findPack, insertCount, listC
 import { assertMonthOpen } from './periods.service';
 import { siteFromInput } from './sites';
 
-type Reader = Pick<SessionUser, 'role' | 'businessId'>;
-type Writer = Pick<SessionUser, 'role' | 'businessId' | 'id'>;
+type Reader = { role: Role; businessId: string };
+type Writer = Reader & { id: string };
 
 export async function listCounts({ db }: AppDeps, user: Reader, siteId: string | undefined): Promise<{ counts: StockCount[]; currency: string }> {
   if (siteId) await siteFromInput(db, user.businessId, siteId);

@@ -2,7 +2,7 @@ import type { ImportPreview, ManualDay, SalesDay, SalesImport } from '../../src/
 import { writeMoney } from '../../src/shared/money';
 import { money, qty } from '../platform/present';
 import type { ImportRow, dayTotals, manualLines } from './sales.repo';
-import type { DrinkSizeChoice, TillPreview } from './till-task';
+import type { DrinkSizeChoice, TillPreview } from './till-types';
 
 export function presentImport(r: ImportRow): SalesImport {
   return {

@@ -1,6 +1,6 @@
 import type { Knex } from 'knex';
 import type { ColumnMapping } from '../../src/shared/contract/books';
-import type { DrinkSizeChoice } from './till-task';
+import type { DrinkSizeChoice } from './till-types';
 
 // Plain rows for till sales: imports, their pending files, their lines and the mappings remembered.
 

@@ -4,6 +4,7 @@ import { importPreviewSchema, type ColumnMapping } from '../../src/shared/contra
 import { zodFieldErrors } from '../../src/shared/schemas/field-errors';
 import { presentPreview } from './sales.presenter';
 import { readHeader, readRows, similarity, TillFileError, type LineError, type TillRow } from './till-csv';
+import type { DrinkSizeChoice, ItemSummary } from './till-types';
 
 /**
  * The CPU-heavy part of a till import: reading every row of the file, grouping the till's items,
@@ -11,13 +12,6 @@ import { readHeader, readRows, similarity, TillFileError, type LineError, type T
  * till-pool.ts), so a large file never holds up the server's event loop; it is plain data in,
  * plain data out.
  */
-
-export interface DrinkSizeChoice {
-  id: string;
-  drink: string;
-  size: string;
-  label: string;
-}
 
 export interface TillTaskInput {
   /** The file's text, in the slices it was read in. */
@@ -31,27 +25,6 @@ export interface TillTaskInput {
   /** For a preview: the business's currency, and whether to check the answer against the contract (tests, development). */
   currency?: string;
   checkResponse?: boolean;
-}
-
-export interface ItemSummary {
-  tillItem: string;
-  tillSize: string;
-  rows: number;
-  quantity: string;
-  netSales: string;
-  drinkSizeId: string | null;
-  remembered: boolean;
-  suggestions: { drinkSizeId: string; label: string; score: number }[];
-}
-
-export interface TillPreview {
-  rowCount: number;
-  errorCount: number;
-  errors: LineError[];
-  firstDay: string | null;
-  lastDay: string | null;
-  netSales: string;
-  items: ItemSummary[];
 }
 
 export type TillTaskResult =

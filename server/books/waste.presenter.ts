@@ -1,12 +1,18 @@
-import { D } from '../../src/shared/decimal';
+import { D, type Dec } from '../../src/shared/decimal';
 import { writeMoney } from '../../src/shared/money';
 import { baseUnitOf, isUnitCode } from '../../src/shared/units';
 import type { WasteChoice, WasteEntry } from '../../src/shared/contract/books';
 import { qty } from '../platform/present';
 import type { Audience } from './audience';
 import type { WasteRow } from './cogs.repo';
-import type { WasteValue } from './waste.service';
 import type { wasteChoiceRows } from './waste.repo';
+
+/** An entry's value at cost by ingredient category, or why it cannot be costed. */
+export interface WasteValue {
+  total: Dec | null;
+  byCategory: Map<string, Dec>;
+  problem: string | null;
+}
 
 /**
  * The month's waste. Each entry's value at cost, why one could not be costed and the month's

@@ -1,9 +1,9 @@
 import type { Knex } from 'knex';
 import type { z } from 'zod';
-import type { SessionUser } from '../auth/roles';
+import type { Role } from '../../src/shared/capabilities';
 import { monthBounds } from '../../src/shared/books';
 import type { WasteChoice, WasteEntry, wasteInSchema } from '../../src/shared/contract/books';
-import { D, dec, type Dec } from '../../src/shared/decimal';
+import { D, dec } from '../../src/shared/decimal';
 import { groupBy } from '../../src/shared/collections';
 import type { LineRow } from '../costing/cost-model.repo';
 import type { AppDeps } from '../platform/deps';
@@ -15,14 +15,8 @@ import { wasteInRange, type WasteRow } from './cogs.repo';
 import { CategorySplitter, loadMonthCosting } from './month-costing';
 import { assertMonthOpen } from './periods.service';
 import { siteFromInput } from './sites';
-import { presentWasteChoices, presentWasteList } from './waste.presenter';
+import { presentWasteChoices, presentWasteList, type WasteValue } from './waste.presenter';
 import { buildLinesOf, deleteWasteRow, insertWaste, lockWaste, recordedBy, WASTE_TABLES, wasteChoiceRows, wasteItemNames } from './waste.repo';
-
-export interface WasteValue {
-  total: Dec | null;
-  byCategory: Map<string, Dec>;
-  problem: string | null;
-}
 
 /**
  * Values waste entries at cost on the day each happened: an ingredient or preparation by its
@@ -57,7 +51,7 @@ export async function valueWaste(db: Knex, businessId: string, month: string, ro
 }
 
 /** The month's waste at a site or every site; valued (and totalled) only for a reader of costs. */
-export async function listWaste({ db }: AppDeps, user: Pick<SessionUser, 'role' | 'businessId'>, q: { month: string; siteId?: string }): Promise<{ month: string; currency: string; entries: WasteEntry[]; total?: string }> {
+export async function listWaste({ db }: AppDeps, user: { role: Role; businessId: string }, q: { month: string; siteId?: string }): Promise<{ month: string; currency: string; entries: WasteEntry[]; total?: string }> {
   const { first, last } = monthBounds(q.month);
   if (q.siteId) await siteFromInput(db, user.businessId, q.siteId);
   const [rows, currency, audience] = await Promise.all([wasteInRange(db, user.businessId, q.siteId ?? null, first, last), currencyOf(db, user.businessId), audienceOf(db, user)]);

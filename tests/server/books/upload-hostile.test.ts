@@ -49,11 +49,11 @@ describe('hostile till files', () => {
 
   it('refuses text that is not UTF-8 (UTF-16, Latin-1), a binary file, an empty file and one over the size limit', async () => {
     const before = await imports();
-    // UTF-16 LE with its byte-order mark FF FE (Unicode Standard §3.10): every other byte is NUL.
+    // UTF-16 LE with its byte-order mark FF FE (UNICODE in tests/SOURCES.md): every other byte is NUL.
     const utf16 = Buffer.concat([Buffer.from([0xff, 0xfe]), Buffer.from(GOOD, 'utf16le')]);
-    // "Crème brûlée" in Latin-1: è is the lone byte E8, which is not UTF-8 (RFC 3629 §3).
+    // "Crème brûlée" in Latin-1: è is the lone byte E8, which is not UTF-8 (UTF8 in tests/SOURCES.md).
     const latin1 = Buffer.from('Day,Product,Variant,Qty,Net\n03/11/2026,Crème brûlée,Reg,2,6.00\n', 'latin1');
-    // A PNG's signature 89 50 4E 47 0D 0A 1A 0A (ISO/IEC 15948 §5.2).
+    // A PNG's signature 89 50 4E 47 0D 0A 1A 0A (PNG in tests/SOURCES.md).
     const png = Buffer.concat([Buffer.from('89504e470d0a1a0a0000000d49484452', 'hex'), Buffer.alloc(64)]);
     for (const [what, content] of [['utf-16', utf16], ['latin-1', latin1], ['png', png], ['empty', Buffer.alloc(0)]] as const) {
       const res = await send({ siteId: cafe.f.siteIds[0] }, { content });
@@ -83,7 +83,7 @@ describe('hostile till files', () => {
     expect(preview.status).toBe(200);
     // Line 4 (the header is line 1) holds a text-direction override in its item.
     expect(preview.body.errors).toEqual([{ line: 4, message: expect.stringContaining('control characters') }]);
-    // The formulas are only names here: kept exactly as written, to be matched to a drink.
+    // The formulas (OWASP-CSV in tests/SOURCES.md) are only names here: kept exactly as written, to be matched to a drink.
     expect(preview.body.items.map((i: { tillItem: string }) => i.tillItem).sort()).toEqual([`=HYPERLINK("http://evil.test","${tag}")`, '@SUM(1+1)'].sort());
   });
 
