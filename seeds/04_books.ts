@@ -3,6 +3,7 @@ import type { Knex } from 'knex';
 import { addMonths, monthBounds, nextDay } from '../src/shared/books';
 import { D, dec, type Dec } from '../src/shared/decimal';
 import { closeMonth } from '../server/books/close.service';
+import { systemClock } from '../server/platform/clock';
 import { countValueByCategory, purchasesByCategory } from '../server/books/cogs.repo';
 import { monthSales } from '../server/books/cogs.service';
 import { stockLevels } from '../server/stock/stock.service';
@@ -171,7 +172,7 @@ export async function seed(knex: Knex) {
     where p.id = l.pack_id and l.order_id in (select id from purchase_orders where business_id = ? and number like 'BK-%')`, [BIZ]);
 
   // The oldest month is closed by the bookkeeper; the other two are open.
-  await closeMonth(knex, BIZ, users.bookkeeper, months[0], 'Month end');
+  await closeMonth({ db: knex, clock: systemClock }, BIZ, users.bookkeeper, months[0], 'Month end');
 }
 
 type Users = Record<string, string>;

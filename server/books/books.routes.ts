@@ -1,169 +1,102 @@
 import { Router, type NextFunction, type Request, type Response } from 'express';
 import multer from 'multer';
 import { z } from 'zod';
+import * as books from '../../src/shared/contract/books';
+import { id } from '../../src/shared/schemas/fields';
+import { zodFieldErrors } from '../../src/shared/schemas/field-errors';
 import type { AppDeps } from '../platform/deps';
-import { monthString } from '../../src/shared/books';
-import { badRequest, notFound, tooLarge } from '../platform/errors';
-import { allow, uuidParam } from '../platform/http/middleware';
-import { parse } from '../platform/http/validate';
+import { badRequest, invalidInput, tooLarge } from '../platform/errors';
+import { endpointsOf } from '../platform/http/mount';
+import { sendCsv } from '../platform/csv';
 import { closeMonth, reopenMonth } from './close.service';
 import { cogsReport } from './cogs.service';
 import * as counts from './counts.service';
-import { sendCsv } from '../platform/csv';
 import { COGS_COLUMNS, cogsCsv, cogsTrend, PURCHASES_COLUMNS, purchasesCsv, STOCK_COLUMNS, stockValuationCsv, supplierChart } from './exports.service';
 import { listPeriods } from './periods.service';
 import * as sales from './sales.service';
 import * as waste from './waste.service';
 
-const monthQuery = z.object({ month: monthString, siteId: z.uuid('Choose a site.').optional() });
-const trendQuery = monthQuery.extend({ months: z.coerce.number().int().min(1).max(24).default(6) });
-const periodBody = z.object({ reason: z.string().trim().max(500).nullish() });
-const countIdQuery = z.object({ countId: z.uuid('Choose a count.') });
-const siteQuery = z.object({ siteId: z.uuid().optional() });
-
-const id = (p: unknown) => String(p);
-
-/** A month in the URL (YYYY-MM); anything else is simply not found. */
-function monthParam(_req: Request, _res: Response, next: NextFunction, value: string) {
-  if (!monthString.safeParse(value).success) throw notFound('That month');
-  next();
-}
-
-function reportsRoutes({ db }: AppDeps) {
-  const r = Router();
-  r.param('month', monthParam);
-
-  r.get('/api/reports/cogs', allow('reports.read'), async (req, res) => {
-    const q = parse(monthQuery, req.query);
-    res.json(await cogsReport(db, req.user!.businessId, q.month, q.siteId ?? null));
-  });
-  r.get('/api/reports/cogs.csv', allow('reports.read'), async (req, res) => {
-    const q = parse(monthQuery, req.query);
-    const { filename, records } = await cogsCsv(db, req.user!.businessId, q.month, q.siteId ?? null);
-    await sendCsv(res, filename, COGS_COLUMNS, records);
-  });
-  r.get('/api/reports/purchases.csv', allow('reports.read'), async (req, res) => {
-    const q = parse(monthQuery, req.query);
-    const { filename, records } = await purchasesCsv(db, req.user!.businessId, q.month, q.siteId ?? null);
-    await sendCsv(res, filename, PURCHASES_COLUMNS, records);
-  });
-  r.get('/api/reports/stock-valuation.csv', allow('reports.read'), async (req, res) => {
-    const q = parse(countIdQuery, req.query);
-    const { filename, records } = await stockValuationCsv(db, req.user!.businessId, q.countId);
-    await sendCsv(res, filename, STOCK_COLUMNS, records);
-  });
-  r.get('/api/reports/purchases-by-supplier', allow('reports.read'), async (req, res) => {
-    const q = parse(monthQuery, req.query);
-    res.json(await supplierChart(db, req.user!.businessId, q.month, q.siteId ?? null));
-  });
-  r.get('/api/reports/cogs-trend', allow('reports.read'), async (req, res) => {
-    const q = parse(trendQuery, req.query);
-    res.json(await cogsTrend(db, req.user!.businessId, q.month, q.siteId ?? null, q.months));
-  });
-
-  r.get('/api/periods', allow('reports.read'), async (req, res) => {
-    res.json({ periods: await listPeriods(db, req.user!.businessId) });
-  });
-  r.post('/api/periods/:month/close', allow('periods.close'), async (req, res) => {
-    const { reason } = parse(periodBody, req.body ?? {});
-    res.json({ period: await closeMonth(db, req.user!.businessId, req.user!.id, id(req.params.month), reason ?? null) });
-  });
-  r.post('/api/periods/:month/reopen', allow('periods.reopen'), async (req, res) => {
-    const { reason } = parse(periodBody, req.body ?? {});
-    res.json({ period: await reopenMonth(db, req.user!.businessId, req.user!.id, id(req.params.month), reason ?? null) });
-  });
-  return r;
-}
-
-function countsRoutes({ db }: AppDeps) {
-  const r = Router();
-  r.param('id', uuidParam);
-  r.param('packId', uuidParam);
-  r.get('/api/stock-counts', allow('stock.read'), async (req, res) => {
-    res.json(await counts.listCounts(db, req.user!.businessId, parse(counts.countListQuery, req.query)));
-  });
-  r.post('/api/stock-counts', allow('counts.write'), async (req, res) => {
-    res.status(201).json(await counts.startCount(db, req.user!.businessId, req.user!.id, parse(counts.countInSchema, req.body)));
-  });
-  r.get('/api/stock-counts/:id', allow('stock.read'), async (req, res) => {
-    res.json(await counts.getCountSheet(db, req.user!.businessId, id(req.params.id)));
-  });
-  r.put('/api/stock-counts/:id/lines/:packId', allow('counts.write'), async (req, res) => {
-    const input = parse(counts.countLineSchema, req.body);
-    res.json(await counts.saveCountLine(db, req.user!.businessId, req.user!.id, id(req.params.id), id(req.params.packId), input));
-  });
-  r.post('/api/stock-counts/:id/finish', allow('counts.write'), async (req, res) => {
-    res.json(await counts.finishCount(db, req.user!.businessId, req.user!.id, id(req.params.id)));
-  });
-  r.delete('/api/stock-counts/:id', allow('counts.write'), async (req, res) => {
-    await counts.deleteCount(db, req.user!.businessId, id(req.params.id));
-    res.status(204).end();
-  });
-  return r;
-}
-
-function wasteRoutes({ db }: AppDeps) {
-  const r = Router();
-  r.param('id', uuidParam);
-  r.get('/api/waste', allow('stock.read'), async (req, res) => {
-    res.json(await waste.listWaste(db, req.user!.businessId, parse(waste.wasteListQuery, req.query)));
-  });
-  r.get('/api/waste/choices', allow('waste.write'), async (req, res) => {
-    res.json(await waste.wasteChoices(db, req.user!.businessId));
-  });
-  r.post('/api/waste', allow('waste.write'), async (req, res) => {
-    res.status(201).json(await waste.recordWaste(db, req.user!.businessId, req.user!.id, parse(waste.wasteInSchema, req.body)));
-  });
-  r.delete('/api/waste/:id', allow('waste.write'), async (req, res) => {
-    await waste.deleteWaste(db, req.user!.businessId, id(req.params.id));
-    res.status(204).end();
-  });
-  return r;
-}
-
-function salesRoutes({ db, config }: AppDeps) {
-  const r = Router();
-  r.param('id', uuidParam);
-  const upload = multer({ storage: multer.memoryStorage(), limits: { fileSize: config.UPLOAD_MAX_BYTES, files: 1, fields: 5 } }).single('file');
-  // multer's own errors become the API's: 413 for a file over the limit, 400 otherwise.
-  const receiveFile = (req: Request, res: Response, next: NextFunction) =>
-    upload(req, res, (err: unknown) => {
-      if (!err) return next();
-      if (err instanceof multer.MulterError && err.code === 'LIMIT_FILE_SIZE') return next(tooLarge(`The file is larger than ${Math.floor(config.UPLOAD_MAX_BYTES / 1024 / 1024)} MB.`));
-      next(badRequest('bad_upload', err instanceof Error ? err.message : 'The upload could not be read.'));
-    });
-
-  r.get('/api/sales-imports', allow('sales.import'), async (req, res) => {
-    res.json(await sales.listImports(db, req.user!.businessId, parse(siteQuery, req.query).siteId));
-  });
-  r.post('/api/sales-imports', allow('sales.import'), receiveFile, async (req, res) => {
-    const { siteId } = parse(z.object({ siteId: z.uuid('Choose a site.') }), req.body ?? {});
-    if (!req.file) throw badRequest('no_file', 'Choose the CSV file exported from the till.');
-    res.status(201).json(await sales.uploadImport(db, req.user!.businessId, req.user!.id, siteId, req.file));
-  });
-  r.post('/api/sales-imports/:id/preview', allow('sales.import'), async (req, res) => {
-    res.json(await sales.previewImport(db, req.user!.businessId, id(req.params.id), parse(sales.previewSchema, req.body).columns));
-  });
-  r.post('/api/sales-imports/:id/accept', allow('sales.import'), async (req, res) => {
-    res.json(await sales.acceptImport(db, req.user!.businessId, req.user!.id, id(req.params.id), parse(sales.acceptSchema, req.body)));
-  });
-  r.delete('/api/sales-imports/:id', allow('sales.import'), async (req, res) => {
-    await sales.discardImport(db, req.user!.businessId, id(req.params.id));
-    res.status(204).end();
-  });
-  r.get('/api/sales/days', allow('sales.import'), async (req, res) => {
-    res.json(await sales.salesDays(db, req.user!.businessId, parse(sales.salesDaysQuery, req.query)));
-  });
-  r.get('/api/sales/days/:soldOn', allow('sales.import'), async (req, res) => {
-    res.json(await sales.manualDay(db, req.user!.businessId, parse(sales.salesDayQuery, { ...req.query, soldOn: req.params.soldOn })));
-  });
-  r.put('/api/sales/days', allow('sales.import'), async (req, res) => {
-    res.json(await sales.saveManualDay(db, req.user!.businessId, parse(sales.manualDaySchema, req.body)));
-  });
-  return r;
-}
+/** The multipart fields of an upload besides the file. */
+const uploadFields = z.object({ siteId: id('site') });
 
 /** The books domain: counts, waste, till sales, month end and the bookkeeper's reports. */
 export function booksRouters(deps: AppDeps): Router[] {
-  return [reportsRoutes(deps), countsRoutes(deps), wasteRoutes(deps), salesRoutes(deps)];
+  const r = Router();
+  const on = endpointsOf(r, deps);
+
+  on(books.cogsReport, ({ user, query }) => cogsReport(deps.db, user.businessId, query.month, query.siteId ?? null));
+  on(books.cogsCsv, async ({ user, query, res }) => {
+    const { filename, records } = await cogsCsv(deps.db, user.businessId, query.month, query.siteId ?? null);
+    await sendCsv(res, filename, COGS_COLUMNS, records);
+  });
+  on(books.purchasesCsv, async ({ user, query, res }) => {
+    const { filename, records } = await purchasesCsv(deps.db, user.businessId, query.month, query.siteId ?? null);
+    await sendCsv(res, filename, PURCHASES_COLUMNS, records);
+  });
+  on(books.stockValuationCsv, async ({ user, query, res }) => {
+    const { filename, records } = await stockValuationCsv(deps.db, user.businessId, query.countId);
+    await sendCsv(res, filename, STOCK_COLUMNS, records);
+  });
+  on(books.purchasesBySupplier, ({ user, query }) => supplierChart(deps.db, user.businessId, query.month, query.siteId ?? null));
+  on(books.cogsTrend, ({ user, query }) => cogsTrend(deps.db, user.businessId, query.month, query.siteId ?? null, query.months));
+
+  on(books.listPeriods, async ({ user }) => ({ periods: await listPeriods(deps.db, user.businessId) }));
+  on(books.closePeriod, async ({ user, params, body }) => ({ period: await closeMonth(deps, user.businessId, user.id, params.month, body.reason ?? null) }));
+  on(books.reopenPeriod, async ({ user, params, body }) => ({ period: await reopenMonth(deps, user.businessId, user.id, params.month, body.reason ?? null) }));
+
+  on(books.listCounts, ({ user, query }) => counts.listCounts(deps, user, query.siteId));
+  on(books.startCount, async ({ user, body }) => ({ count: await counts.startCount(deps, user, body) }));
+  on(books.getCountSheet, ({ user, params }) => counts.getCountSheet(deps, user, params.id));
+  on(books.saveCountLine, async ({ user, params, body }) => ({ line: await counts.saveCountLine(deps, user, params.id, params.packId, body) }));
+  on(books.finishCount, async ({ user, params }) => ({ count: await counts.finishCount(deps, user, params.id) }));
+  on(books.deleteCount, ({ user, params }) => counts.deleteCount(deps, user.businessId, params.id));
+
+  on(books.listWaste, ({ user, query }) => waste.listWaste(deps, user, query));
+  on(books.wasteChoices, async ({ user }) => ({ choices: await waste.wasteChoices(deps, user.businessId) }));
+  on(books.recordWaste, async ({ user, body }) => ({ entry: await waste.recordWaste(deps, user.businessId, user.id, body) }));
+  on(books.deleteWaste, ({ user, params }) => waste.deleteWaste(deps, user.businessId, params.id));
+
+  on(books.listImports, async ({ user, query }) => ({ imports: await sales.listImports(deps, user.businessId, query.siteId) }));
+  on(
+    books.uploadImport,
+    async ({ user, req }) => {
+      const fields = uploadFields.safeParse(req.body ?? {});
+      if (!fields.success) throw invalidInput(zodFieldErrors(fields.error));
+      if (!req.file) throw invalidInput({ file: 'Choose the CSV file exported from the till.' });
+      return sales.uploadImport(deps, user.businessId, user.id, fields.data.siteId, req.file);
+    },
+    { before: [receiveFile(deps)] },
+  );
+  on(books.previewImport, async ({ user, params, body, res }) => {
+    // The answer is written as JSON in the worker thread that read the file (and checked there
+    // against the contract when responses are checked), so it is sent as it comes.
+    const json = await sales.previewImport(deps, user.businessId, params.id, body.columns);
+    res.status(200).type('application/json').send(json);
+    return answeredAbove<books.ImportPreview>();
+  });
+  on(books.acceptImport, async ({ user, params, body }) => ({ import: await sales.acceptImport(deps, user.businessId, params.id, body) }));
+  on(books.discardImport, ({ user, params }) => sales.discardImport(deps, user.businessId, params.id));
+  on(books.salesDays, ({ user, query }) => sales.salesDays(deps, user.businessId, query));
+  on(books.salesDay, ({ user, params, query }) => sales.manualDay(deps, user.businessId, query.siteId, params.soldOn));
+  on(books.saveSalesDay, ({ user, body }) => sales.saveManualDay(deps, user.businessId, body));
+  return [r];
+}
+
+/** For a handler that wrote the response itself (the mount then sends nothing more). */
+const answeredAbove = <T>(): T => undefined as T;
+
+/**
+ * The till file, in memory (it is kept in the database until accepted), one file and a few
+ * fields at most; names are read as UTF-8. multer's own errors become the API's: 413 for a
+ * file over the limit, 400 otherwise.
+ */
+function receiveFile({ config }: AppDeps) {
+  const upload = multer({ storage: multer.memoryStorage(), defParamCharset: 'utf8', limits: { fileSize: config.UPLOAD_MAX_BYTES, files: 1, fields: 5, fieldSize: 1024 } }).single('file');
+  return (req: Request, res: Response, next: NextFunction) =>
+    upload(req, res, (err: unknown) => {
+      if (!err) return next();
+      if (err instanceof multer.MulterError && err.code === 'LIMIT_FILE_SIZE') return next(tooLarge(`The file is larger than ${Math.floor(config.UPLOAD_MAX_BYTES / 1024 / 1024)} MB.`));
+      if (err instanceof multer.MulterError && err.field) return next(invalidInput({ [err.field]: err.message }));
+      next(badRequest('bad_upload', err instanceof Error ? err.message : 'The upload could not be read.'));
+    });
 }

@@ -1,6 +1,33 @@
 import type { Knex } from 'knex';
 import { INGREDIENT_CATEGORIES } from '../../src/shared/categories';
 
+export interface ReportStateRow {
+  currency: string;
+  version: string | number | null;
+  books_version: string | number | null;
+  fingerprint: string | null;
+  period_id: string | null;
+  period_status: 'open' | 'closed' | null;
+  site_found: boolean;
+}
+
+/** What a report needs to know before its figures, in ONE statement: versions, the month's state, whether the site is the business's. */
+export async function reportStateRow(db: Knex, businessId: string, month: string, siteId: string | null): Promise<ReportStateRow> {
+  const { rows } = await db.raw(
+    `select b.currency,
+            (select version from data_versions where business_id = b.id and kind = 'costing') as version,
+            (select version from data_versions where business_id = b.id and kind = 'books') as books_version,
+            (select fingerprint from recipe_cost_months where business_id = b.id and month = :month) as fingerprint,
+            p.id as period_id, p.status as period_status,
+            (:site::uuid is null or exists (select 1 from sites s where s.id = :site::uuid and s.business_id = b.id)) as site_found
+       from businesses b left join periods p on p.business_id = b.id and p.month = :month
+      where b.id = :biz`,
+    { biz: businessId, month: `${month}-01`, site: siteId },
+  );
+  if (!rows[0]) throw new Error(`Business ${businessId} not found`);
+  return rows[0];
+}
+
 // Plain rows for the month's cost of goods. Each figure is one aggregate statement in
 // PostgreSQL; nothing here loops over sales lines in JavaScript.
 

@@ -1,35 +1,17 @@
 import type { Knex } from 'knex';
-import { assembleCogs, monthBounds, type CategoryFigures, type CogsRowOut, type CogsTotalsOut } from '../../src/shared/books';
+import { assembleCogs, monthBounds, type CategoryFigures } from '../../src/shared/books';
+import type { CogsReport, CountRef } from '../../src/shared/contract/books';
 import { D, dec, type Dec } from '../../src/shared/decimal';
 import { writeQuantity } from '../../src/shared/money';
-import { chooseCounts, chosenCountsQuery, countValueByCategory, purchasesByCategory, salesAggregate, wasteInRange, type CategoryValue, type ChosenCount, type SalesAggregate, type WasteRow } from './cogs.repo';
+import { chooseCounts, chosenCountsQuery, countValueByCategory, purchasesByCategory, reportStateRow, salesAggregate, wasteInRange, type CategoryValue, type ChosenCount, type SalesAggregate, type WasteRow } from './cogs.repo';
+import { listSites } from './books.repo';
+import { frozenReport } from './periods.repo';
 import { loadMonthCosting } from './month-costing';
 import { ensureRecipeCosts, type KnownCostingState } from './recipe-costs.service';
-import { valueWaste, type WasteValue } from './waste.service';
+import { valueWaste } from './waste.service';
+import type { WasteValue } from './waste.presenter';
 import { cacheFor } from '../platform/versions';
-import { notFound } from '../platform/errors';
-
-export interface CountRef {
-  siteId: string;
-  countId: string;
-  countDate: string;
-}
-
-export interface CogsReport {
-  month: string;
-  siteId: string | null;
-  closed: boolean;
-  currency: string;
-  rows: CogsRowOut[];
-  totals: CogsTotalsOut;
-  /** The counts used as opening and closing stock, one per site that has one. */
-  counts: { opening: CountRef[]; closing: CountRef[] };
-  /** Cups sold in the month, and those that could not be costed (no build or no price). */
-  cups: string;
-  uncostedCups: string;
-  /** What the reader should know before trusting the figures (a missing count, an unpriced pack…). */
-  notes: string[];
-}
+import { invalidInput } from '../platform/errors';
 
 const refs = (counts: ChosenCount[]): CountRef[] => counts.map((c) => ({ siteId: c.site_id, countId: c.id, countDate: c.count_date }));
 
@@ -44,19 +26,7 @@ export interface ReportState extends KnownCostingState {
 }
 
 export async function reportState(db: Knex, businessId: string, month: string, siteId: string | null): Promise<ReportState> {
-  const { rows } = await db.raw(
-    `select b.currency,
-            (select version from data_versions where business_id = b.id and kind = 'costing') as version,
-            (select version from data_versions where business_id = b.id and kind = 'books') as books_version,
-            (select fingerprint from recipe_cost_months where business_id = b.id and month = :month) as fingerprint,
-            p.id as period_id, p.status as period_status,
-            (:site::uuid is null or exists (select 1 from sites s where s.id = :site::uuid and s.business_id = b.id)) as site_found
-       from businesses b left join periods p on p.business_id = b.id and p.month = :month
-      where b.id = :biz`,
-    { biz: businessId, month: `${month}-01`, site: siteId },
-  );
-  const r = rows[0];
-  if (!r) throw new Error(`Business ${businessId} not found`);
+  const r = await reportStateRow(db, businessId, month, siteId);
   return { currency: r.currency, version: r.version === null ? '0' : String(r.version), booksVersion: r.books_version === null ? '0' : String(r.books_version), fingerprint: r.fingerprint, periodId: r.period_id, closed: r.period_status === 'closed', siteFound: r.site_found };
 }
 
@@ -94,7 +64,7 @@ async function sideFigures(db: Knex, businessId: string, month: string, siteId: 
     countValueByCategory(db, chosenCountsQuery(db, businessId, siteId, day, exactly)),
   ]).then(([counts, values]) => ({ counts, values }));
   const [sites, opening, closing, purchases, waste] = await Promise.all([
-    db('sites').where({ business_id: businessId }).modify((q) => (siteId ? q.where({ id: siteId }) : q)).orderBy('created_at').select('id', 'name') as Promise<{ id: string; name: string }[]>,
+    listSites(db, businessId, siteId),
     countsOn(previousLast, false),
     countsOn(last, true),
     purchasesByCategory(db, businessId, siteId, first, last),
@@ -141,7 +111,7 @@ export async function computeCogs(db: Knex, businessId: string, month: string, s
   const { rows, totals } = assembleCogs(list, sales.netSales, currency);
 
   const notes: string[] = [];
-    const without = (counts: ChosenCount[]) => sites.filter((s) => !counts.some((c) => c.site_id === s.id)).map((s) => s.name);
+  const without = (counts: ChosenCount[]) => sites.filter((s) => !counts.some((c) => c.site_id === s.id)).map((s) => s.name);
   const noOpening = without(opening.counts);
   const noClosing = without(closing.counts);
   if (noOpening.length) notes.push(`No finished count on or before ${previousLast} for ${noOpening.join(', ')}: opening stock is taken as nothing there.`);
@@ -171,10 +141,10 @@ export async function computeCogs(db: Knex, businessId: string, month: string, s
 export async function cogsReport(db: Knex, businessId: string, month: string, siteId: string | null): Promise<CogsReport> {
   monthBounds(month);
   const state = await reportState(db, businessId, month, siteId);
-  if (!state.siteFound) throw notFound('That site');
-  if (state.closed) {
-    const snap = await db('period_reports').where({ period_id: state.periodId }).modify((q) => (siteId ? q.where({ site_id: siteId }) : q.whereNull('site_id'))).first('report');
-    if (snap) return { ...(snap.report as Omit<CogsReport, 'closed'>), closed: true };
+  if (!state.siteFound) throw invalidInput({ siteId: 'Choose one of your sites.' });
+  if (state.closed && state.periodId) {
+    const snap = await frozenReport(db, state.periodId, siteId);
+    if (snap) return { ...(snap as Omit<CogsReport, 'closed'>), closed: true };
   }
   return { ...(await computeCogs(db, businessId, month, siteId, state)), closed: state.closed };
 }

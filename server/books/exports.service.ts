@@ -1,12 +1,15 @@
 import type { Knex } from 'knex';
 import { addMonths, monthBounds } from '../../src/shared/books';
+import type { CogsReport, TrendMonth } from '../../src/shared/contract/books';
 import { D, dec } from '../../src/shared/decimal';
 import { writeMoney, writeQuantity } from '../../src/shared/money';
-import { notFound } from '../platform/errors';
-import { cogsReport, type CogsReport } from './cogs.service';
+import { invalidInput } from '../platform/errors';
+import { cogsReport } from './cogs.service';
 import { purchasesBySupplier } from './cogs.repo';
+import { currencyOf } from './books.repo';
 import { pages, slug, type CsvColumn, type CsvRecord } from '../platform/csv';
-import { assertSite } from './sites';
+import { ledgerPage, LEDGER_PAGE, valuationLines, valuedCount, type LedgerRow } from './reports.repo';
+import { siteFromInput } from './sites';
 
 /** Column names of the exports (documented in the README): plain words, our own. */
 export const COGS_COLUMNS: CsvColumn[] = [
@@ -50,7 +53,7 @@ export const STOCK_COLUMNS: CsvColumn[] = [
 ];
 
 async function siteLabel(db: Knex, businessId: string, siteId: string | null): Promise<string> {
-  return siteId ? (await assertSite(db, businessId, siteId)).name : 'All sites';
+  return siteId ? (await siteFromInput(db, businessId, siteId)).name : 'All sites';
 }
 
 /** The cost-of-goods report as CSV records: one per category, then the totals. */
@@ -62,45 +65,12 @@ export async function cogsCsv(db: Knex, businessId: string, month: string, siteI
   return { filename: `cost-of-goods_${month}_${slug(site)}.csv`, records, report };
 }
 
-interface LedgerRow {
-  id: string;
-  received_on: string;
-  site: string;
-  supplier: string;
-  number: string;
-  invoice: string | null;
-  net: string | null;
-  tax: string | null;
-  payment_reference: string | null;
-}
-
-const LEDGER_PAGE = 2000;
-
 /** The purchases ledger of a month: one record per delivery received, read page by page. */
 export async function purchasesCsv(db: Knex, businessId: string, month: string, siteId: string | null) {
   const site = await siteLabel(db, businessId, siteId);
   const { first, last } = monthBounds(month);
-  const currency = (await db('businesses').where({ id: businessId }).first('currency')).currency as string;
-  const fetchPage = (after: LedgerRow | null) =>
-    db('receipts as r')
-      .join('purchase_orders as po', 'po.id', 'r.order_id')
-      .join('suppliers as s', 's.id', 'po.supplier_id')
-      .join('sites as st', 'st.id', 'r.site_id')
-      .leftJoin('receipt_lines as rl', 'rl.receipt_id', 'r.id')
-      .where('r.business_id', businessId)
-      .whereBetween('r.received_on', [first, last])
-      .modify((q) => {
-        if (siteId) q.where('r.site_id', siteId);
-        if (after) q.whereRaw('(r.received_on, r.id) > (?::date, ?::uuid)', [after.received_on, after.id]);
-      })
-      .groupBy('r.id', 'st.name', 's.name', 'po.number', 'po.supplier_invoice_number', 'po.payment_reference')
-      .orderBy([{ column: 'r.received_on' }, { column: 'r.id' }])
-      .limit(LEDGER_PAGE)
-      .select(
-        'r.id', 'r.received_on', 'st.name as site', 's.name as supplier', 'po.number',
-        db.raw('coalesce(r.supplier_invoice_number, po.supplier_invoice_number) as invoice'),
-        db.raw('sum(rl.net) as net'), db.raw('sum(rl.tax) as tax'), 'po.payment_reference',
-      ) as Promise<LedgerRow[]>;
+  const currency = await currencyOf(db, businessId);
+  const fetchPage = (after: LedgerRow | null) => ledgerPage(db, businessId, siteId, first, last, after);
   async function* records(): AsyncGenerator<CsvRecord> {
     for await (const r of pages(fetchPage, LEDGER_PAGE)) {
       const net = dec(r.net ?? '0');
@@ -123,23 +93,12 @@ export async function purchasesCsv(db: Knex, businessId: string, month: string, 
 
 /** A count's stock valuation: each pack counted × its price in force on the count date, then the total. */
 export async function stockValuationCsv(db: Knex, businessId: string, countId: string) {
-  const count = await db('stock_counts as c').join('sites as s', 's.id', 'c.site_id').where({ 'c.id': countId, 'c.business_id': businessId }).first('c.id', 'c.count_date', 's.name as site');
-  if (!count) throw notFound('That count');
-  const currency = (await db('businesses').where({ id: businessId }).first('currency')).currency as string;
-  const { rows } = await db.raw(
-    `select a.name as area, i.name as ingredient, i.category, p.description as pack, l.packs, coalesce(l.frozen_price, pr.price) as price
-       from stock_count_lines l
-       join packs p on p.id = l.pack_id
-       join ingredients i on i.id = p.ingredient_id
-       left join storage_areas a on a.id = l.storage_area_id
-       left join lateral (select pp.price from pack_prices pp where pp.pack_id = l.pack_id and pp.effective_from <= ?::date
-                          order by pp.effective_from desc, pp.created_at desc limit 1) pr on true
-      where l.count_id = ?
-      order by a.position nulls last, a.name nulls last, i.name, p.description`,
-    [count.count_date, countId],
-  );
+  const count = await valuedCount(db, businessId, countId);
+  if (!count) throw invalidInput({ countId: 'Choose one of your counts.' });
+  const currency = await currencyOf(db, businessId);
+  const rows = await valuationLines(db, countId, count.count_date);
   let total = new D(0);
-  const records: CsvRecord[] = rows.map((r: { area: string | null; ingredient: string; category: string; pack: string; packs: string; price: string | null }) => {
+  const records: CsvRecord[] = rows.map((r) => {
     const value = r.price === null ? null : dec(r.packs).times(dec(r.price));
     if (value) total = total.plus(dec(writeMoney(value, currency)));
     return {
@@ -159,9 +118,9 @@ export async function stockValuationCsv(db: Knex, businessId: string, countId: s
 }
 
 export async function supplierChart(db: Knex, businessId: string, month: string, siteId: string | null) {
-  if (siteId) await assertSite(db, businessId, siteId);
+  if (siteId) await siteFromInput(db, businessId, siteId);
   const { first, last } = monthBounds(month);
-  const currency = (await db('businesses').where({ id: businessId }).first('currency')).currency as string;
+  const currency = await currencyOf(db, businessId);
   const rows = await purchasesBySupplier(db, businessId, siteId, first, last);
   return { month, siteId, currency, suppliers: rows.map((r) => ({ supplier: r.supplier, net: writeMoney(r.net, currency) })) };
 }
@@ -169,7 +128,7 @@ export async function supplierChart(db: Knex, businessId: string, month: string,
 /** Cost of goods % of net sales for the months up to `month` (closed months from their frozen report). */
 export async function cogsTrend(db: Knex, businessId: string, month: string, siteId: string | null, count: number) {
   const months = Array.from({ length: count }, (_, i) => addMonths(month, i - count + 1));
-  const out = [];
+  const out: TrendMonth[] = [];
   let currency = '';
   for (const m of months) {
     const r = await cogsReport(db, businessId, m, siteId);

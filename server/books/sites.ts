@@ -1,9 +1,13 @@
 import type { Knex } from 'knex';
-import { notFound } from '../platform/errors';
+import { invalidInput } from '../platform/errors';
+import { findSite } from './books.repo';
 
-/** 404 unless the site is this business's (another business's ids are simply not found). */
-export async function assertSite(db: Knex, businessId: string, siteId: string): Promise<{ id: string; name: string }> {
-  const site = await db('sites').where({ id: siteId, business_id: businessId }).first('id', 'name');
-  if (!site) throw notFound('That site');
+/**
+ * A site named in a body or a query: this business's, or 400 `invalid_input` naming the field
+ * (another business's site is the caller's mistake there, not a record to hide).
+ */
+export async function siteFromInput(db: Knex, businessId: string, siteId: string, field = 'siteId'): Promise<{ id: string; name: string }> {
+  const site = await findSite(db, businessId, siteId);
+  if (!site) throw invalidInput({ [field]: 'Choose one of your sites.' });
   return site;
 }

@@ -1,42 +1,22 @@
 import { parse } from 'csv-parse/sync';
-import { fileTypeFromBuffer } from 'file-type';
 import { distance } from 'fastest-levenshtein';
-import { z } from 'zod';
+import type { ColumnMapping } from '../../src/shared/contract/books';
 import { isDecimalString } from '../../src/shared/decimal';
-import { badRequest } from '../platform/errors';
-
-/** Reading a till's CSV export: its type by content, its columns, and its rows with line numbers. */
-
-export const DATE_FORMATS = ['YYYY-MM-DD', 'DD/MM/YYYY', 'MM/DD/YYYY'] as const;
-
-export const columnMappingSchema = z.object({
-  date: z.string({ error: 'Choose the date column.' }).min(1, 'Choose the date column.'),
-  item: z.string({ error: 'Choose the item column.' }).min(1, 'Choose the item column.'),
-  size: z.string().nullish(),
-  quantity: z.string({ error: 'Choose the quantity column.' }).min(1, 'Choose the quantity column.'),
-  netSales: z.string({ error: 'Choose the net sales column.' }).min(1, 'Choose the net sales column.'),
-  tax: z.string().nullish(),
-  dateFormat: z.enum(DATE_FORMATS).default('YYYY-MM-DD'),
-});
-export type ColumnMapping = z.infer<typeof columnMappingSchema>;
+import { columnProblem, hasControlCharacters, isCalendarDate } from '../../src/shared/schemas/fields';
 
 /**
- * The upload must be text: not a known binary format (by its magic bytes), no NUL byte, and
- * valid UTF-8 (a byte-order mark is dropped). Returns the text.
+ * Reading a till's CSV export: its columns, and its rows with line numbers. Pure (no I/O, no
+ * HTTP errors), so the worker thread that reads large files runs the very same code.
  */
-export async function readTextFile(buffer: Buffer): Promise<string> {
-  if (!buffer.length) throw badRequest('empty_file', 'The file is empty.');
-  const type = await fileTypeFromBuffer(buffer);
-  if (type) throw badRequest('not_csv', `This file is a ${type.ext.toUpperCase()} file, not a CSV. Export the sales from the till as CSV and try again.`);
-  if (buffer.includes(0)) throw badRequest('not_csv', 'This file is not text. Export the sales from the till as CSV and try again.');
-  let text: string;
-  try {
-    text = new TextDecoder('utf-8', { fatal: true }).decode(buffer);
-  } catch {
-    throw badRequest('not_csv', 'This file is not UTF-8 text. Export the sales as CSV (UTF-8) and try again.');
+
+/** A file that cannot be read: `not_csv` for the whole file, `invalid_input` for a field of the mapping. */
+export class TillFileError extends Error {
+  constructor(readonly code: 'not_csv' | 'invalid_input', message: string, readonly field?: string) {
+    super(message);
   }
-  return text.replace(/^\uFEFF/, '');
 }
+
+export type { ColumnMapping };
 
 /** Comma, semicolon or tab: whichever the header line uses most. */
 function delimiterOf(text: string): string {
@@ -51,11 +31,11 @@ export function readHeader(text: string): { headers: string[]; sample: string[][
   try {
     rows = parse(text, { delimiter: delimiterOf(text), to_line: 6, relax_column_count: true, skip_empty_lines: true, trim: true });
   } catch (e) {
-    throw badRequest('not_csv', `The file cannot be read as CSV: ${(e as Error).message}`);
+    throw new TillFileError('not_csv', `The file cannot be read as CSV: ${(e as Error).message}`);
   }
   const headers = rows[0] ?? [];
-  if (headers.length < 4 || headers.some((h) => !h)) throw badRequest('not_csv', 'The first line must name the columns (date, item, quantity, net sales at least).');
-  if (new Set(headers.map((h) => h.toLowerCase())).size !== headers.length) throw badRequest('not_csv', 'Two columns have the same name in the first line.');
+  if (headers.length < 4 || headers.some((h) => !h)) throw new TillFileError('not_csv', 'The first line must name the columns (date, item, quantity, net sales at least).');
+  if (new Set(headers.map((h) => h.toLowerCase())).size !== headers.length) throw new TillFileError('not_csv', 'Two columns have the same name in the first line.');
   return { headers, sample: rows.slice(1) };
 }
 
@@ -106,16 +86,19 @@ function readDate(value: string, format: ColumnMapping['dateFormat']): string | 
   else if (format === 'MM/DD/YYYY' && slashed) [, m, d, y] = slashed;
   else return null;
   const out = `${y}-${m.padStart(2, '0')}-${d.padStart(2, '0')}`;
-  const date = new Date(`${out}T00:00:00Z`);
-  return !Number.isNaN(date.getTime()) && date.toISOString().startsWith(out) ? out : null;
+  return isCalendarDate(out) ? out : null;
 }
 
-/** A money or quantity cell as a plain decimal: a leading currency sign and thousands commas are dropped. */
+/**
+ * A money or quantity cell as a plain decimal that its column stores exactly (numeric(14, 4):
+ * at most 10 digits before the point and 4 after): a leading currency sign and thousands commas
+ * are dropped.
+ */
 function readNumber(value: string): string | null {
   let v = value.replace(/^([-]?)\s*[£$€¥]\s*/, '$1').replace(/\s/g, '');
   if (/^-?\d{1,3}(,\d{3})+(\.\d+)?$/.test(v)) v = v.replaceAll(',', '');
   if (/^-?\.\d+$/.test(v)) v = v.replace('.', '0.');
-  return isDecimalString(v) && Math.abs(Number(v)) < 1e9 ? v : null;
+  return isDecimalString(v) && columnProblem(v, 'money') === null ? v : null;
 }
 
 /**
@@ -125,7 +108,7 @@ function readNumber(value: string): string | null {
  */
 export function readRows(text: string, mapping: ColumnMapping, headers: string[]): { rows: TillRow[]; errors: LineError[] } {
   const missing = (['date', 'item', 'quantity', 'netSales', 'size', 'tax'] as const).filter((k) => mapping[k] && !headers.includes(mapping[k] as string));
-  if (missing.length) throw badRequest('invalid_input', `The file has no column "${mapping[missing[0]]}".`);
+  if (missing.length) throw new TillFileError('invalid_input', `The file has no column "${mapping[missing[0]]}".`, `columns.${missing[0]}`);
   const index = (h: string | null | undefined) => (h ? headers.indexOf(h) : -1);
   const at = { date: index(mapping.date), item: index(mapping.item), size: index(mapping.size), quantity: index(mapping.quantity), net: index(mapping.netSales), tax: index(mapping.tax) };
   const rows: TillRow[] = [];
@@ -145,6 +128,7 @@ export function readRows(text: string, mapping: ColumnMapping, headers: string[]
     if (!soldOn) problems.push(`the date "${cell(at.date)}" is not a ${mapping.dateFormat} date`);
     const item = cell(at.item);
     if (!item) problems.push('the item is empty');
+    else if (hasControlCharacters(item, false) || hasControlCharacters(cell(at.size), false)) problems.push('the item or size holds control characters (such as a text-direction mark)');
     const quantity = readNumber(cell(at.quantity));
     if (quantity === null) problems.push(`the quantity "${cell(at.quantity)}" is not a number`);
     const net = readNumber(cell(at.net));

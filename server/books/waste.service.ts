@@ -1,38 +1,22 @@
 import type { Knex } from 'knex';
-import { z } from 'zod';
-import { monthBounds, monthString } from '../../src/shared/books';
-import { D, dec, type Dec } from '../../src/shared/decimal';
-import { writeMoney } from '../../src/shared/money';
-import { rules } from '../../src/shared/checks';
-import { UNIT_CODES } from '../../src/shared/units';
-import type { BuildLineRow, LineRow } from '../costing/cost-model.repo';
-import { decimalString, yieldBaseUnit } from '../costing/shared';
+import type { z } from 'zod';
+import type { Role } from '../../src/shared/capabilities';
+import { monthBounds } from '../../src/shared/books';
+import type { WasteChoice, WasteEntry, wasteInSchema } from '../../src/shared/contract/books';
+import { D, dec } from '../../src/shared/decimal';
 import { groupBy } from '../../src/shared/collections';
-import { isoDate } from '../../src/shared/schemas/fields';
-import { qty } from '../platform/present';
-import { badRequest, notFound } from '../platform/errors';
+import type { LineRow } from '../costing/cost-model.repo';
+import type { AppDeps } from '../platform/deps';
+import { invalidInput, notFound } from '../platform/errors';
+import { assertOwnedId } from '../platform/ownership';
+import { audienceOf } from './audience';
+import { currencyOf } from './books.repo';
 import { wasteInRange, type WasteRow } from './cogs.repo';
 import { CategorySplitter, loadMonthCosting } from './month-costing';
 import { assertMonthOpen } from './periods.service';
-import { assertSite } from './sites';
-
-export const wasteInSchema = z.object({
-  siteId: z.uuid('Choose a site.'),
-  occurredOn: isoDate,
-  item: z.object({ kind: z.enum(['ingredient', 'preparation', 'drinkSize']), id: z.uuid('Choose what was wasted.') }),
-  quantity: decimalString(rules.positive),
-  /** A standard unit for an ingredient or preparation; cups (null) for a drink. */
-  unit: z.enum(UNIT_CODES).nullish(),
-  reason: z.string({ error: 'Say why it was wasted.' }).trim().min(1, 'Say why it was wasted.').max(200),
-});
-
-export const wasteListQuery = z.object({ siteId: z.uuid().optional(), month: monthString });
-
-export interface WasteValue {
-  total: Dec | null;
-  byCategory: Map<string, Dec>;
-  problem: string | null;
-}
+import { siteFromInput } from './sites';
+import { presentWasteChoices, presentWasteList, type WasteValue } from './waste.presenter';
+import { buildLinesOf, deleteWasteRow, insertWaste, lockWaste, recordedBy, WASTE_TABLES, wasteChoiceRows, wasteItemNames } from './waste.repo';
 
 /**
  * Values waste entries at cost on the day each happened: an ingredient or preparation by its
@@ -43,12 +27,7 @@ export async function valueWaste(db: Knex, businessId: string, month: string, ro
   const out = new Map<string, WasteValue>();
   if (!rows.length) return out;
   const sizeIds = [...new Set(rows.map((r) => r.drink_size_id).filter((x): x is string => Boolean(x)))];
-  const [costing, builds] = await Promise.all([
-    loadMonthCosting(db, businessId, month, knownVersion),
-    sizeIds.length
-      ? (db('build_lines').whereIn('drink_size_id', sizeIds).orderBy('position').select('id', 'drink_size_id', 'position', 'ingredient_id', 'preparation_id', 'quantity', 'unit', 'measure_id') as Promise<BuildLineRow[]>)
-      : Promise.resolve([] as BuildLineRow[]),
-  ]);
+  const [costing, builds] = await Promise.all([loadMonthCosting(db, businessId, month, knownVersion), buildLinesOf(db, sizeIds)]);
   const buildOf = groupBy(builds, (b) => b.drink_size_id);
   const splitters = new Map(costing.ranges.map((r) => [r.loaded, new CategorySplitter(r.loaded)]));
   for (const w of rows) {
@@ -71,99 +50,54 @@ export async function valueWaste(db: Knex, businessId: string, month: string, ro
   return out;
 }
 
-export async function listWaste(db: Knex, businessId: string, q: z.infer<typeof wasteListQuery>) {
+/** The month's waste at a site or every site; valued (and totalled) only for a reader of costs. */
+export async function listWaste({ db }: AppDeps, user: { role: Role; businessId: string }, q: { month: string; siteId?: string }): Promise<{ month: string; currency: string; entries: WasteEntry[]; total?: string }> {
   const { first, last } = monthBounds(q.month);
-  if (q.siteId) await assertSite(db, businessId, q.siteId);
-  const [rows, business] = await Promise.all([wasteInRange(db, businessId, q.siteId ?? null, first, last), db('businesses').where({ id: businessId }).first('currency')]);
-  const values = await valueWaste(db, businessId, q.month, rows);
-  const names = await itemNames(db, rows);
-  const recorded = await db('waste_entries as w').leftJoin('users as u', 'u.id', 'w.recorded_by').whereIn('w.id', rows.map((r) => r.id)).select('w.id', 'u.name');
-  const by = new Map(recorded.map((r) => [r.id, r.name as string | null]));
-  let total = new D(0);
-  const entries = rows.map((r) => {
-    const v = values.get(r.id) as WasteValue;
-    if (v.total) total = total.plus(v.total);
-    return {
-      id: r.id,
-      siteId: r.site_id,
-      occurredOn: r.occurred_on,
-      item: { kind: r.drink_size_id ? 'drinkSize' : r.preparation_id ? 'preparation' : 'ingredient', id: (r.drink_size_id ?? r.preparation_id ?? r.ingredient_id) as string, name: names.get((r.drink_size_id ?? r.preparation_id ?? r.ingredient_id) as string) ?? '' },
-      quantity: qty(r.quantity),
-      unit: r.unit,
-      reason: r.reason,
-      value: v.total ? writeMoney(v.total, business.currency) : null,
-      problem: v.problem,
-      recordedBy: by.get(r.id) ?? null,
-    };
-  });
-  return { month: q.month, currency: business.currency as string, entries, total: writeMoney(total, business.currency) };
-}
-
-async function itemNames(db: Knex, rows: readonly WasteRow[]): Promise<Map<string, string>> {
-  const ing = rows.map((r) => r.ingredient_id).filter(Boolean) as string[];
-  const prep = rows.map((r) => r.preparation_id).filter(Boolean) as string[];
-  const size = rows.map((r) => r.drink_size_id).filter(Boolean) as string[];
-  const [a, b, c] = await Promise.all([
-    ing.length ? db('ingredients').whereIn('id', ing).select('id', 'name') : [],
-    prep.length ? db('preparations').whereIn('id', prep).select('id', 'name') : [],
-    size.length ? db('drink_sizes as ds').join('drinks as d', 'd.id', 'ds.drink_id').join('cup_sizes as cs', 'cs.id', 'ds.size_id').whereIn('ds.id', size).select('ds.id', db.raw("d.name || ' (' || cs.name || ')' as name")) : [],
+  if (q.siteId) await siteFromInput(db, user.businessId, q.siteId);
+  const [rows, currency, audience] = await Promise.all([wasteInRange(db, user.businessId, q.siteId ?? null, first, last), currencyOf(db, user.businessId), audienceOf(db, user)]);
+  const ids = (pick: (r: WasteRow) => string | null) => rows.map(pick).filter((x): x is string => Boolean(x));
+  const [names, by, values] = await Promise.all([
+    wasteItemNames(db, { ingredients: ids((r) => r.ingredient_id), preparations: ids((r) => r.preparation_id), sizes: ids((r) => r.drink_size_id) }),
+    recordedBy(db, rows.map((r) => r.id)),
+    audience.currency !== null ? valueWaste(db, user.businessId, q.month, rows) : Promise.resolve(new Map<string, WasteValue>()),
   ]);
-  return new Map([...a, ...b, ...c].map((r: { id: string; name: string }) => [r.id, r.name]));
+  return presentWasteList(q.month, currency, rows, names, by, values, audience);
 }
 
-export async function recordWaste(db: Knex, businessId: string, userId: string, input: z.infer<typeof wasteInSchema>) {
-  const table = { ingredient: 'ingredients', preparation: 'preparations', drinkSize: 'drink_sizes' }[input.item.kind];
-  if (input.item.kind !== 'drinkSize' && !input.unit) throw badRequest('invalid_input', 'Choose the unit of what was wasted.');
+const ITEM_MESSAGE = { ingredient: 'Choose one of your ingredients.', preparation: 'Choose one of your preparations.', drinkSize: 'Choose one of your drinks and sizes.' } as const;
+
+export async function recordWaste({ db }: AppDeps, businessId: string, userId: string, input: z.output<typeof wasteInSchema>): Promise<{ id: string; occurredOn: string }> {
+  if (input.item.kind !== 'drinkSize' && !input.unit) throw invalidInput({ unit: 'Choose the unit of what was wasted.' });
   return db.transaction(async (trx) => {
-    await assertSite(trx, businessId, input.siteId);
-    const item = await trx(table).where({ id: input.item.id, business_id: businessId }).first('id');
-    if (!item) throw notFound('That item');
+    await siteFromInput(trx, businessId, input.siteId);
+    await assertOwnedId(trx, businessId, WASTE_TABLES[input.item.kind], 'item.id', input.item.id, ITEM_MESSAGE[input.item.kind]);
     await assertMonthOpen(trx, businessId, input.occurredOn);
-    const [row] = await trx('waste_entries')
-      .insert({
-        business_id: businessId,
-        site_id: input.siteId,
-        occurred_on: input.occurredOn,
-        ingredient_id: input.item.kind === 'ingredient' ? input.item.id : null,
-        preparation_id: input.item.kind === 'preparation' ? input.item.id : null,
-        drink_size_id: input.item.kind === 'drinkSize' ? input.item.id : null,
-        quantity: input.quantity,
-        unit: input.item.kind === 'drinkSize' ? null : input.unit,
-        reason: input.reason,
-        recorded_by: userId,
-      })
-      .returning(['id', 'occurred_on']);
-    return { entry: { id: row.id as string, occurredOn: row.occurred_on as string } };
+    const row = await insertWaste(trx, {
+      business_id: businessId,
+      site_id: input.siteId,
+      occurred_on: input.occurredOn,
+      ingredient_id: input.item.kind === 'ingredient' ? input.item.id : null,
+      preparation_id: input.item.kind === 'preparation' ? input.item.id : null,
+      drink_size_id: input.item.kind === 'drinkSize' ? input.item.id : null,
+      quantity: input.quantity,
+      unit: input.item.kind === 'drinkSize' ? null : (input.unit ?? null),
+      reason: input.reason,
+      recorded_by: userId,
+    });
+    return { id: row.id, occurredOn: row.occurred_on };
   });
 }
 
-export async function deleteWaste(db: Knex, businessId: string, id: string) {
+export async function deleteWaste({ db }: AppDeps, businessId: string, id: string): Promise<void> {
   await db.transaction(async (trx) => {
-    const row = await trx('waste_entries').where({ id, business_id: businessId }).forUpdate().first('occurred_on');
+    const row = await lockWaste(trx, businessId, id);
     if (!row) throw notFound('That waste entry');
     await assertMonthOpen(trx, businessId, row.occurred_on);
-    await trx('waste_entries').where({ id }).del();
+    await deleteWasteRow(trx, id);
   });
 }
 
-/**
- * What waste can be recorded against, without any cost: the roles that record waste
- * (baristas among them) may not read costs.
- */
-export async function wasteChoices(db: Knex, businessId: string) {
-  const [ingredients, preparations, sizes] = await Promise.all([
-    db('ingredients').where({ business_id: businessId }).whereNull('archived_at').orderBy('name').select('id', 'name', 'base_unit'),
-    db('preparations').where({ business_id: businessId }).whereNull('archived_at').orderBy('name').select('id', 'name', 'yield_unit'),
-    db('drink_sizes as ds').join('drinks as d', 'd.id', 'ds.drink_id').join('cup_sizes as cs', 'cs.id', 'ds.size_id')
-      .where('ds.business_id', businessId).whereNull('d.archived_at')
-      .orderBy([{ column: 'd.name' }, { column: 'cs.position' }])
-      .select('ds.id', 'd.name as drink_name', 'cs.name as size_name'),
-  ]);
-  return {
-    choices: [
-      ...ingredients.map((i) => ({ kind: 'ingredient' as const, id: i.id as string, name: i.name as string, baseUnit: i.base_unit as string })),
-      ...preparations.map((p) => ({ kind: 'preparation' as const, id: p.id as string, name: p.name as string, baseUnit: yieldBaseUnit(p.yield_unit) ?? undefined })),
-      ...sizes.map((s) => ({ kind: 'drinkSize' as const, id: s.id as string, name: `${s.drink_name} (${s.size_name})` })),
-    ],
-  };
+/** What waste can be recorded against, without any cost: the roles that record waste (baristas among them) may not read costs. */
+export async function wasteChoices({ db }: AppDeps, businessId: string): Promise<WasteChoice[]> {
+  return presentWasteChoices(await wasteChoiceRows(db, businessId));
 }

@@ -1,6 +1,7 @@
-import { z } from 'zod';
 import { D, dec, type Dec, type DecimalInput } from './decimal';
 import { writeMoney, writePercent } from './money';
+import type { CogsRow, CogsTotals } from './contract/books';
+import { addDays, monthBounds as calendarMonthBounds } from './calendar';
 
 /**
  * The books arithmetic: monthly cost of goods by the periodic method, theoretical against
@@ -56,33 +57,6 @@ export interface CategoryFigures {
   waste: DecimalInput;
 }
 
-export interface CogsRowOut {
-  category: string;
-  opening: string;
-  purchases: string;
-  closing: string;
-  actual: string;
-  theoretical: string;
-  variance: string;
-  /** Variance as a % of theoretical; null when theoretical is zero. */
-  variancePct: string | null;
-  waste: string;
-}
-
-export interface CogsTotalsOut {
-  opening: string;
-  purchases: string;
-  closing: string;
-  actual: string;
-  theoretical: string;
-  variance: string;
-  variancePct: string | null;
-  waste: string;
-  netSales: string;
-  /** Actual cost of goods as a % of net sales; null without sales. */
-  cogsPctOfSales: string | null;
-}
-
 const writePct = (v: Dec | null) => (v === null ? null : writePercent(v));
 
 /**
@@ -96,10 +70,10 @@ const writePct = (v: Dec | null) => (v === null ? null : writePercent(v));
  * unrounded sum. Percentages are worked out from the rounded money and written to 2 places.
  * Rows are sorted by category name; categories with every figure zero are left out.
  */
-export function assembleCogs(figures: readonly CategoryFigures[], netSales: DecimalInput, currency: string): { rows: CogsRowOut[]; totals: CogsTotalsOut } {
+export function assembleCogs(figures: readonly CategoryFigures[], netSales: DecimalInput, currency: string): { rows: CogsRow[]; totals: CogsTotals } {
   const r = (v: DecimalInput) => dec(writeMoney(v, currency));
   const sums = { opening: ZERO, purchases: ZERO, closing: ZERO, actual: ZERO, theoretical: ZERO, variance: ZERO, waste: ZERO };
-  const rows: CogsRowOut[] = [];
+  const rows: CogsRow[] = [];
   for (const f of [...figures].sort((a, b) => a.category.localeCompare(b.category))) {
     const opening = r(f.opening);
     const purchases = r(f.purchases);
@@ -148,43 +122,19 @@ export function assembleCogs(figures: readonly CategoryFigures[], netSales: Deci
   };
 }
 
-/** A calendar month as YYYY-MM. */
-export const MONTH_PATTERN = /^\d{4}-(0[1-9]|1[0-2])$/;
-export const monthString = z.string({ error: 'Give the month as YYYY-MM.' }).regex(MONTH_PATTERN, 'Give the month as YYYY-MM.');
-
-const pad = (n: number) => String(n).padStart(2, '0');
+const MONTH_PATTERN = /^\d{4}-(0[1-9]|1[0-2])$/;
 
 /** First and last day of a month, and the last day of the month before (all YYYY-MM-DD). */
 export function monthBounds(month: string): { first: string; last: string; previousLast: string } {
   if (!MONTH_PATTERN.test(month)) throw new RangeError(`Not a month: ${month}`);
-  const [y, m] = month.split('-').map(Number);
-  const lastDay = new Date(Date.UTC(y, m, 0)).getUTCDate();
-  const prev = new Date(Date.UTC(y, m - 1, 0));
-  return {
-    first: `${month}-01`,
-    last: `${month}-${pad(lastDay)}`,
-    previousLast: `${prev.getUTCFullYear()}-${pad(prev.getUTCMonth() + 1)}-${pad(prev.getUTCDate())}`,
-  };
+  const { first, last } = calendarMonthBounds(month);
+  return { first, last, previousLast: addDays(first, -1) };
 }
 
-/** The month (YYYY-MM) a date (YYYY-MM-DD) falls in. */
-export function monthOf(date: string): string {
-  return date.slice(0, 7);
-}
+export { addMonths, monthOf } from './calendar';
 
-/** The month `n` months after `month` (negative for before). */
-export function addMonths(month: string, n: number): string {
-  const [y, m] = month.split('-').map(Number);
-  const d = new Date(Date.UTC(y, m - 1 + n, 1));
-  return `${d.getUTCFullYear()}-${pad(d.getUTCMonth() + 1)}`;
-}
-
-/** The day after a date (YYYY-MM-DD). */
-export function nextDay(date: string, n = 1): string {
-  const d = new Date(`${date}T00:00:00Z`);
-  d.setUTCDate(d.getUTCDate() + n);
-  return d.toISOString().slice(0, 10);
-}
+/** The day `n` days after a date (YYYY-MM-DD); the next day by default. */
+export const nextDay = (date: string, n = 1): string => addDays(date, n);
 
 const NUMERIC_CELL = /^-?\d+(\.\d+)?$/;
 const FORMULA_START = /^[=+\-@\t\r]/;

@@ -26,7 +26,7 @@ function localMonth(): string {
 
 interface Day { closed: boolean; lines: { drinkSizeId: string; label: string; quantity: string; netSales: string }[]; importedLines: number }
 
-test('the manual day loads what was saved for it, says saving replaces it, replaces it, and a closed month cannot be saved', async () => {
+test('the manual day loads what was saved for it, says saving replaces it, replaces it, and a closed month cannot be saved', { timeout: 120_000 }, async () => {
   const page = await s.newPage();
   const day = `${addMonths(localMonth(), -1)}-02`;
   const closedDay = `${addMonths(localMonth(), -3)}-02`;

@@ -4,7 +4,7 @@ import { formatMoney } from '../../src/lib/format';
 import { D } from '../../src/shared/decimal';
 import { DEMO } from '../../seeds/01_tenancy';
 import { MENU_IDS } from '../../seeds/02_menu';
-import type { CogsReport } from '../../src/features/books/api/types';
+import type { CogsReport } from '../../src/shared/contract/books';
 import { serveDemo, type Served, getJson } from './harness';
 
 // The tables' shared behaviour in a real browser against the seeded demo café: sorting by a

@@ -6,8 +6,9 @@ import { Field } from '../../components/ui/field';
 import { Input, Select } from '../../components/ui/input';
 import { PageHeader } from '../../components/ui/page-header';
 import { SkeletonRows } from '../../components/ui/skeleton';
-import { paths } from '../../lib/paths';
-import { useCogs } from '../../features/books/api/get-cogs';
+import { hrefOf } from '../../lib/contract';
+import { cogsCsv, purchasesCsv, stockValuationCsv } from '../../shared/contract/books';
+import { useCogs } from '../../features/books/api/reports';
 import { CategoryChart, CogsTrendChart, SupplierChart } from '../../features/books/components/cogs-charts';
 import { CogsSummary, CogsTable } from '../../features/books/components/cogs-table';
 import { MonthClose } from '../../features/books/components/month-close';
@@ -40,8 +41,8 @@ export function MonthEndRoute() {
         action={
           ready && (
             <div className="flex flex-wrap gap-2">
-              <a className={buttonClasses('primary')} href={paths.api.cogsCsv(month, siteId)} download>Download cost of goods (CSV)</a>
-              <a className={buttonClasses('secondary')} href={paths.api.purchasesCsv(month, siteId)} download>Purchases ledger (CSV)</a>
+              <a className={buttonClasses('primary')} href={hrefOf(cogsCsv, { query: { month, siteId: siteId ?? undefined } })} download>Download cost of goods (CSV)</a>
+              <a className={buttonClasses('secondary')} href={hrefOf(purchasesCsv, { query: { month, siteId: siteId ?? undefined } })} download>Purchases ledger (CSV)</a>
             </div>
           )
         }
@@ -91,7 +92,7 @@ export function MonthEndRoute() {
             <p className="text-sm">
               Stock valuation at the closing count:{' '}
               {report.data.counts.closing.map((c) => (
-                <a key={c.countId} className="mr-3 underline decoration-copper" href={paths.api.stockValuationCsv(c.countId)} download>
+                <a key={c.countId} className="mr-3 underline decoration-copper" href={hrefOf(stockValuationCsv, { query: { countId: c.countId } })} download>
                   {work.sites.find((s) => s.id === c.siteId)?.name ?? 'site'} ({c.countDate}, CSV)
                 </a>
               ))}

@@ -7,10 +7,13 @@ import { formatDate } from '../../lib/format';
 import { paths } from '../../lib/paths';
 import { useCountSheet } from '../../features/books/api/counts';
 import { CountSheetView } from '../../features/books/components/count-sheet';
+import { can } from '../../shared/capabilities';
+import { useWorkSite } from './work-site';
 
 export function StockCountRoute() {
   const { countId = '' } = useParams();
   const sheet = useCountSheet(countId);
+  const work = useWorkSite();
   const count = sheet.data?.count;
   return (
     <div className="flex max-w-3xl flex-col gap-4">
@@ -26,7 +29,7 @@ export function StockCountRoute() {
       ) : sheet.isError ? (
         <ErrorState error={sheet.error} onRetry={() => sheet.refetch()} />
       ) : (
-        <CountSheetView sheet={sheet.data} canWrite />
+        <CountSheetView sheet={sheet.data} canWrite={can(work.role, 'counts.write')} />
       )}
     </div>
   );

@@ -7,14 +7,13 @@ import { PageHeader } from '../../components/ui/page-header';
 import { SkeletonRows } from '../../components/ui/skeleton';
 import { formatDate } from '../../lib/format';
 import { useMe } from '../../features/auth/api/get-me';
-import { booksKey } from '../../features/books/api/keys';
 import { ordersKey } from '../../features/orders/api/get-orders';
 import { SuggestedOrder } from '../../features/orders/components/suggested-order';
 import { useStock } from '../../features/stock/api/get-stock';
 import { useStorageAreas } from '../../features/stock/api/get-storage-areas';
 import { StockTable } from '../../features/stock/components/stock-table';
 import { StorageAreas } from '../../features/stock/components/storage-areas';
-import { useContractQuery } from '../../lib/contract';
+import { invalidate, useContractQuery } from '../../lib/contract';
 import { listSuppliers } from '../../shared/contract/suppliers';
 import { useWorkSite } from './work-site';
 
@@ -33,7 +32,8 @@ export function StockRoute() {
   const supplierId = list.find((s) => s.id === params.get('supplierId'))?.id ?? list[0]?.id;
   const areas = useStorageAreas(site?.id, canEdit);
   // Count sheets group packs by area: a change here shows there on the next look.
-  const areasChanged = () => queryClient.invalidateQueries({ queryKey: booksKey });
+  // A moved pack moves in the site's open counts too: their sheets read again.
+  const areasChanged = () => invalidate(queryClient, '/api/stock-counts');
 
   return (
     <div className="flex max-w-6xl flex-col gap-6">

@@ -2,21 +2,19 @@ import { EmptyState } from '../../components/ui/empty-state';
 import { ErrorState } from '../../components/ui/error-state';
 import { PageHeader } from '../../components/ui/page-header';
 import { SkeletonRows } from '../../components/ui/skeleton';
-import { type Role } from '../../shared/capabilities';
 import { useWaste, useWasteChoices } from '../../features/books/api/waste';
 import { localMonth } from '../../features/books/components/dates';
 import { WasteForm } from '../../features/books/components/waste-form';
 import { WasteList } from '../../features/books/components/waste-list';
+import { can } from '../../shared/capabilities';
 import { useWorkSite } from './work-site';
 
-// Mirrors the server's capability 'waste.write'.
-const WASTE_WRITERS: readonly Role[] = ['owner', 'barista', 'bookkeeper'];
 
 export function WasteRoute() {
   const work = useWorkSite();
   const month = localMonth();
   const waste = useWaste(work.site?.id, month);
-  const canWrite = work.role !== null && WASTE_WRITERS.includes(work.role);
+  const canWrite = can(work.role, 'waste.write');
   const choices = useWasteChoices(canWrite);
   return (
     <div className="flex max-w-4xl flex-col gap-6 text-lg">

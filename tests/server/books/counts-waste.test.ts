@@ -29,7 +29,15 @@ describe('stock counts', () => {
     const bad = await barista.put(`/api/stock-counts/${id}/lines/${cafe.milk.packId}`, { quantity: '2', unit: 'each' });
     expect(bad.status).toBe(400);
 
-    const sheet = await barista.get(`/api/stock-counts/${id}`);
+    // The barista's sheet has the packs counted and no money anywhere.
+    const bare = await barista.get(`/api/stock-counts/${id}`);
+    expect(bare.status).toBe(200);
+    expect(bare.body.areas[1].items[0]).toMatchObject({ packs: '1.5', category: 'coffee' });
+    expect(JSON.stringify(bare.body)).not.toMatch(/"(price|value)"/);
+    expect(bare.body.count).toMatchObject({ lineCount: 2 });
+
+    const owner = await signIn(ctx.app, cafe.f.users.owner.email);
+    const sheet = await owner.get(`/api/stock-counts/${id}`);
     expect(sheet.status).toBe(200);
     expect(sheet.body.areas.map((a: { name: string }) => a.name)).toEqual(['Fridge', 'Not in an area']);
     // Beans on 2026-10-20 cost 24.00 a pack (the rise of the 16th): 1.5 × 24 = 36.00; milk 4.5 × 1.20 = 5.40.
@@ -38,7 +46,10 @@ describe('stock counts', () => {
     expect(sheet.body.count.value).toBe('41.40');
 
     const done = await barista.post(`/api/stock-counts/${id}/finish`);
-    expect(done.body.count).toMatchObject({ status: 'finished', value: '41.40', lineCount: 2 });
+    expect(done.body.count).toMatchObject({ status: 'finished', lineCount: 2 });
+    expect(done.body.count).not.toHaveProperty('value');
+    expect((await barista.get(`/api/stock-counts?siteId=${site}`)).body.counts[0]).not.toHaveProperty('value');
+    expect((await owner.get(`/api/stock-counts?siteId=${site}`)).body.counts[0]).toMatchObject({ id, value: '41.40', lineCount: 2 });
     const late = await barista.put(`/api/stock-counts/${id}/lines/${cafe.beans.packId}`, { packs: '9' });
     expect(late.status).toBe(409);
     expect(late.body.error.code).toBe('count_finished');
@@ -55,9 +66,13 @@ describe('waste log', () => {
     expect((await barista.post('/api/waste', milk)).status).toBe(201);
     expect((await manager.post('/api/waste', milk)).status).toBe(403);
     expect((await barista.post('/api/waste', { ...milk, item: { kind: 'drinkSize', id: cafe.latteSizeId }, quantity: '3', unit: null, occurredOn: '2026-10-16', reason: 'Remade' })).status).toBe(201);
-    expect((await barista.post('/api/waste', { ...milk, unit: undefined })).status).toBe(400);
+    const noUnit = await barista.post('/api/waste', { ...milk, unit: undefined });
+    expect(noUnit.status).toBe(400);
+    expect(Object.keys(noUnit.body.error.fields)).toEqual(['unit']);
 
-    const list = await barista.get(`/api/waste?siteId=${site}&month=2026-10`);
+    expect((await barista.get(`/api/waste?siteId=${site}&month=2026-10`)).body).not.toHaveProperty('total');
+    const owner = await signIn(ctx.app, cafe.f.users.owner.email);
+    const list = await owner.get(`/api/waste?siteId=${site}&month=2026-10`);
     expect(list.status).toBe(200);
     // 500 ml × 0.0012 = 0.60; 3 lattes on the 16th × (0.432 + 0.30 + 0.02 + 0.10) = 2.556 → 2.56.
     expect(list.body.entries.map((e: { value: string; reason: string }) => [e.reason, e.value])).toEqual([['Poured away', '0.60'], ['Remade', '2.56']]);

@@ -75,18 +75,22 @@ describe('a day of sales typed in by hand', () => {
     expect(await manualRows(site, '2026-09-05')).toEqual([{ drink_size_id: cafe.latteSizeId, quantity: '20.0000', net_sales: '56.0000', tax: null }]);
   });
 
-  it('names a bad day or site (400), is 404 for another business\'s site, and is kept to the roles that import sales', async () => {
+  it('names a bad site (400, another business\'s too), has no page for a day that is not one (404), and is kept to the roles that import sales', async () => {
     const cafe = await makeBooksCafe(ctx.db);
     const site = cafe.f.siteIds[0];
     const other = await makeBusiness(ctx.db);
     const owner = await signIn(ctx.app, cafe.f.users.owner.email);
-    for (const [path, field] of [[`/api/sales/days/2026-02-30?siteId=${site}`, 'soldOn'], [`/api/sales/days/yesterday?siteId=${site}`, 'soldOn'], ['/api/sales/days/2026-10-01', 'siteId'], ['/api/sales/days/2026-10-01?siteId=north', 'siteId']] as const) {
+    // A day in the path that no calendar has is a page that does not exist.
+    for (const path of [`/api/sales/days/2026-02-30?siteId=${site}`, `/api/sales/days/0000-01-01?siteId=${site}`, `/api/sales/days/yesterday?siteId=${site}`]) {
+      expect((await owner.get(path)).status, path).toBe(404);
+    }
+    for (const path of ['/api/sales/days/2026-10-01', '/api/sales/days/2026-10-01?siteId=north', `/api/sales/days/2026-10-01?siteId=${other.siteIds[0]}`]) {
       const res = await owner.get(path);
       expect(res.status, path).toBe(400);
-      expect(Object.keys(res.body.error.fields), path).toEqual([field]);
+      expect(res.body.error.code, path).toBe('invalid_input');
+      expect(Object.keys(res.body.error.fields), path).toEqual(['siteId']);
     }
-    expect((await owner.get(`/api/sales/days/2026-10-01?siteId=${other.siteIds[0]}`)).status).toBe(404);
-    expect((await (await signIn(ctx.app, other.users.owner.email)).get(`/api/sales/days/2026-10-01?siteId=${site}`)).status).toBe(404);
+    expect((await (await signIn(ctx.app, other.users.owner.email)).get(`/api/sales/days/2026-10-01?siteId=${site}`)).status).toBe(400);
     expect((await (await signIn(ctx.app, cafe.f.users.bookkeeper.email)).get(`/api/sales/days/2026-10-01?siteId=${site}`)).status).toBe(200);
     expect((await (await signIn(ctx.app, cafe.f.users.barista.email)).get(`/api/sales/days/2026-10-01?siteId=${site}`)).status).toBe(403);
   });

@@ -150,3 +150,64 @@ describe('till sales import', () => {
     expect(days.body.days.find((d: { day: string }) => d.day === '2026-11-09')).toEqual({ day: '2026-11-09', cups: '42', netSales: '126.00', manualLines: 1, importedLines: 0 });
   });
 });
+
+describe('the same sales imported again', () => {
+  let cafe: Cafe;
+  let owner: Session;
+  beforeAll(async () => {
+    cafe = await makeBooksCafe(ctx.db);
+    owner = await signIn(ctx.app, cafe.f.users.owner.email);
+  });
+
+  async function importWhole(site: string, file: string, filename: string) {
+    const up = await upload(owner, site, file, filename);
+    expect(up.status, JSON.stringify(up.body)).toBe(201);
+    const accept = await owner.post(`/api/sales-imports/${up.body.import.id}/accept`, { columns, items: [{ tillItem: 'Latte', tillSize: 'Reg', drinkSizeId: cafe.latteSizeId }] });
+    expect(accept.status, JSON.stringify(accept.body)).toBe(200);
+    return up.body.import.id as string;
+  }
+  const header = 'Day,Product,Variant,Qty,Net,VAT';
+  const rows = ['10/11/2026,Latte,Reg,12,36.00,7.20', '11/11/2026,Latte,Reg,9,27.00,5.40', '12/11/2026,Latte,Reg,4,12.00,2.40'];
+
+  it('is refused when only the line endings differ, naming the file that holds them', async () => {
+    const site = cafe.f.siteIds[0];
+    await importWhole(site, `${[header, ...rows].join('\n')}\n`, 'november-week-2.csv');
+    // The same rows with CR LF line endings: other bytes (another SHA-256), the same sales.
+    const crlf = `${[header, ...rows].join('\r\n')}\r\n`;
+    const again = await upload(owner, site, crlf, 'november-week-2-again.csv');
+    expect(again.status, JSON.stringify(again.body)).toBe(409);
+    expect(again.body.error.code).toBe('already_imported');
+    expect(again.body.error.message).toContain('"november-week-2.csv"');
+    expect(await ctx.db('sales_imports').where({ business_id: cafe.biz, filename: 'november-week-2-again.csv' }).first()).toBeUndefined();
+  });
+
+  it('is refused when the rows come in another order (and with "36" for "36.00"), at preview and at accept', async () => {
+    const site = cafe.f.siteIds[1];
+    // A first file whose columns the business has not used before: nothing remembered, so the
+    // repeat is found once the columns are chosen.
+    await importWhole(site, `${[header, ...rows].join('\n')}\n`, 'canal-november.csv');
+    await ctx.db('till_column_mappings').where({ business_id: cafe.biz }).del();
+    const shuffled = [header, rows[2], rows[0].replace('36.00', '36'), rows[1]].join('\n');
+    const up = await upload(owner, site, shuffled, 'canal-november-resent.csv');
+    expect(up.status, JSON.stringify(up.body)).toBe(201);
+    const preview = await owner.post(`/api/sales-imports/${up.body.import.id}/preview`, { columns });
+    expect(preview.status).toBe(409);
+    expect(preview.body.error).toMatchObject({ code: 'already_imported', message: expect.stringContaining('"canal-november.csv"') });
+    const accept = await owner.post(`/api/sales-imports/${up.body.import.id}/accept`, { columns, items: [{ tillItem: 'Latte', tillSize: 'Reg', drinkSizeId: cafe.latteSizeId }] });
+    expect(accept.status).toBe(409);
+    expect(accept.body.error.message).toContain('"canal-november.csv"');
+    // 12 + 9 + 4 cups from the first file only.
+    const cups = await ctx.db('sales_lines').where({ business_id: cafe.biz, site_id: site }).whereBetween('sold_on', ['2026-11-10', '2026-11-12']).sum<{ s: string }[]>('quantity as s');
+    expect(Number(cups[0].s)).toBe(25);
+    // The same rows at the other site are that site's own sales.
+    expect((await upload(owner, cafe.f.siteIds[0], shuffled, 'market-november.csv')).status).toBe(201);
+  });
+
+  it('takes a file that differs by one row', async () => {
+    const site = cafe.f.siteIds[0];
+    const other = [header, ...rows.slice(0, 2), '12/11/2026,Latte,Reg,5,15.00,3.00'].join('\n');
+    const up = await upload(owner, site, other, 'corrected.csv');
+    expect(up.status).toBe(201);
+    expect((await owner.post(`/api/sales-imports/${up.body.import.id}/preview`, { columns })).status).toBe(200);
+  });
+});

@@ -24,8 +24,15 @@ test('a barista reads what waste can be recorded against, with no cost, and reco
   expect(JSON.stringify(res.body)).not.toMatch(/cost|price/i);
   const rec = await barista.post('/api/waste', { siteId: biz.siteIds[0], occurredOn: '2026-11-20', item: { kind: 'ingredient', id: milk.id }, quantity: '250', unit: 'ml', reason: 'Spilled or dropped' });
   expect(rec.status).toBe(201);
-  // 2.40 for 2000 ml at 100 % yield → 0.0012 a ml; 250 ml → 0.30.
+  // The barista's list shows what was wasted and why, and no money at all.
   const list = await barista.get(`/api/waste?month=2026-11&siteId=${biz.siteIds[0]}`);
   expect(list.body.entries).toHaveLength(1);
-  expect(list.body.total).toBe('0.30');
+  expect(list.body.entries[0]).toMatchObject({ quantity: '250', unit: 'ml', reason: 'Spilled or dropped', item: { name: 'Whole milk' } });
+  expect(Object.keys(list.body).sort()).toEqual(['currency', 'entries', 'month']);
+  expect(Object.keys(list.body.entries[0])).not.toContain('value');
+  // The owner's shows its value: 2.40 for 2000 ml at 100 % yield → 0.0012 a ml; 250 ml → 0.30.
+  const owner = await signIn(ctx.app, biz.users.owner.email);
+  const valued = await owner.get(`/api/waste?month=2026-11&siteId=${biz.siteIds[0]}`);
+  expect(valued.body.entries[0].value).toBe('0.30');
+  expect(valued.body.total).toBe('0.30');
 });

@@ -1,18 +1,10 @@
-import { queryOptions, useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
-import { ApiError, apiClient, getCsrfToken } from '../../../lib/api-client';
-import { paths } from '../../../lib/paths';
-import { booksKey } from './keys';
-import type { ColumnMapping, ImportPreview, SalesImport, UploadResult } from './types';
-
-export const importsQueryOptions = (siteId: string | undefined) =>
-  queryOptions({
-    queryKey: [...booksKey, 'imports', siteId] as const,
-    queryFn: () => apiClient.get<{ imports: SalesImport[] }>(paths.api.salesImports(siteId)),
-    enabled: Boolean(siteId),
-  });
+import { ApiError, getCsrfToken } from '../../../lib/api-client';
+import { hrefOf, useContractMutation, useContractQuery } from '../../../lib/contract';
+import { acceptImport, discardImport, listImports, previewImport, uploadImport, type UploadResult } from '../../../shared/contract/books';
+import { BOOKS_PATHS } from './books-data';
 
 export function useImports(siteId: string | undefined) {
-  return useQuery(importsQueryOptions(siteId));
+  return useContractQuery(listImports, { query: { siteId } }, { enabled: Boolean(siteId) });
 }
 
 /**
@@ -22,7 +14,7 @@ export function useImports(siteId: string | undefined) {
 export function uploadTillFile(siteId: string, file: File, onProgress: (fraction: number) => void): Promise<UploadResult> {
   return new Promise((resolve, reject) => {
     const xhr = new XMLHttpRequest();
-    xhr.open('POST', paths.api.salesImports());
+    xhr.open('POST', hrefOf(uploadImport, {}));
     xhr.setRequestHeader('Accept', 'application/json');
     const csrf = getCsrfToken();
     if (csrf) xhr.setRequestHeader('X-CSRF-Token', csrf);
@@ -46,22 +38,13 @@ export function uploadTillFile(siteId: string, file: File, onProgress: (fraction
 }
 
 export function usePreviewImport() {
-  return useMutation({ mutationFn: ({ id, columns }: { id: string; columns: ColumnMapping }) => apiClient.post<ImportPreview>(paths.api.importPreview(id), { columns }) });
+  return useContractMutation(previewImport);
 }
 
 export function useAcceptImport() {
-  const queryClient = useQueryClient();
-  return useMutation({
-    mutationFn: ({ id, columns, items }: { id: string; columns: ColumnMapping; items: { tillItem: string; tillSize: string; drinkSizeId: string }[] }) =>
-      apiClient.post<{ import: SalesImport }>(paths.api.importAccept(id), { columns, items }),
-    onSuccess: () => queryClient.invalidateQueries({ queryKey: booksKey }),
-  });
+  return useContractMutation(acceptImport, { invalidates: BOOKS_PATHS });
 }
 
 export function useDiscardImport() {
-  const queryClient = useQueryClient();
-  return useMutation({
-    mutationFn: (id: string) => apiClient.delete(paths.api.salesImport(id)),
-    onSuccess: () => queryClient.invalidateQueries({ queryKey: booksKey }),
-  });
+  return useContractMutation(discardImport, { invalidates: BOOKS_PATHS });
 }

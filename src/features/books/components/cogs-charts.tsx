@@ -2,8 +2,8 @@ import { Bar, BarChart, CartesianGrid, Line, LineChart, ResponsiveContainer, Too
 import { ErrorState } from '../../../components/ui/error-state';
 import { SkeletonRows } from '../../../components/ui/skeleton';
 import { formatMoney } from '../../../lib/format';
-import { useCogsTrend, useSupplierPurchases } from '../api/get-cogs';
-import type { CogsReport } from '../api/types';
+import { useCogsTrend, useSupplierPurchases } from '../api/reports';
+import type { CogsReport } from '../../../shared/contract/books';
 import { categoryName } from './cogs-table';
 
 // Recharts draws with currentColor under the palette's text colours (tailwind.config.ts), so no

@@ -6,7 +6,7 @@ import { StatusMark } from '../../../components/ui/status-mark';
 import { SortHeader, Table, TableFilters, Td, THead, useSortedRows } from '../../../components/ui/table';
 import { formatMoney } from '../../../lib/format';
 import { dec } from '../../../shared/decimal';
-import type { CogsReport, CogsRow } from '../api/types';
+import type { CogsReport, CogsRow } from '../../../shared/contract/books';
 
 const CATEGORY_NAMES: Record<string, string> = {
   coffee: 'Coffee', dairy: 'Dairy', 'plant-milk': 'Plant milk', 'syrup-sauce': 'Syrups and sauces', powder: 'Powders', tea: 'Tea', extras: 'Extras', packaging: 'Packaging', other: 'Other',

@@ -5,7 +5,7 @@ import { formatMoney, formatQuantity } from '../../../lib/format';
 import { D, isDecimalString, type Dec } from '../../../shared/decimal';
 import { conversionFactor, isUnitCode, UNITS } from '../../../shared/units';
 import { useSaveCountLine } from '../api/counts';
-import type { SheetItem } from '../api/types';
+import type { CountLineIn, SheetItem } from '../../../shared/contract/books';
 
 /** The open-pack choices a barista taps instead of typing a fraction. */
 const OPEN_PACK = [
@@ -60,14 +60,14 @@ export function CountLine({ countId, item, currency, readOnly }: { countId: stri
   const [state, setState] = useState(() => initialState(item));
   const [error, setError] = useState<string | null>(null);
   const [savedAt, setSavedAt] = useState<string | null>(null);
-  const save = useSaveCountLine(countId);
+  const save = useSaveCountLine();
   const id = useId();
   const baseSymbol = UNITS[item.baseUnit].symbol;
   const per = basePerPack(item);
 
   function send(next: typeof state) {
     setError(null);
-    let body: { packs: string } | { quantity: string; unit: string };
+    let body: CountLineIn;
     if (next.mode === 'packs') {
       const whole = next.whole.trim() === '' ? '0' : next.whole.trim();
       if (!/^\d+$/.test(whole)) return setError('Whole packs: a whole number, 0 or more.');
@@ -80,7 +80,7 @@ export function CountLine({ countId, item, currency, readOnly }: { countId: stri
       body = { quantity: amount, unit: item.baseUnit };
     }
     save.mutate(
-      { packId: item.packId, ...body },
+      { params: { id: countId, packId: item.packId }, body },
       {
         onSuccess: (r) => setSavedAt(r.line.packs),
         onError: (e) => setError(isApiError(e) ? (Object.values(e.fields)[0] ?? e.message) : 'Not saved: check your connection and try again.'),

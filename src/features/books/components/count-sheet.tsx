@@ -5,7 +5,7 @@ import { EmptyState } from '../../../components/ui/empty-state';
 import { isApiError } from '../../../lib/api-client';
 import { formatDate, formatMoney } from '../../../lib/format';
 import { useFinishCount } from '../api/counts';
-import type { CountSheet } from '../api/types';
+import type { CountSheet } from '../../../shared/contract/books';
 import { CountLine } from './count-line';
 
 /** The count sheet by storage area, each pack saving itself, and the finish step with its confirmation. */
@@ -13,7 +13,7 @@ export function CountSheetView({ sheet, canWrite }: { sheet: CountSheet; canWrit
   const { count, currency, areas } = sheet;
   const finished = count.status === 'finished';
   const [asking, setAsking] = useState(false);
-  const finish = useFinishCount(count.id);
+  const finish = useFinishCount();
   const total = areas.reduce((n, a) => n + a.items.length, 0);
   const counted = areas.reduce((n, a) => n + a.items.filter((i) => i.packs !== null).length, 0);
 
@@ -25,7 +25,9 @@ export function CountSheetView({ sheet, canWrite }: { sheet: CountSheet; canWrit
       {finished && (
         <p role="status" className="rounded-md border border-olive/40 bg-card px-4 py-3 text-ink">
           Finished {count.finishedAt ? formatDate(count.finishedAt, { withTime: true }) : ''}
-          {count.finishedBy ? ` by ${count.finishedBy}` : ''}. Stock valued at {count.value ? formatMoney(count.value, currency) : 'not yet priced'}.
+          {count.finishedBy ? ` by ${count.finishedBy}` : ''}.
+          {/* The value comes only to roles that read costs. */}
+          {count.value !== undefined && ` Stock valued at ${formatMoney(count.value, currency)}.`}
         </p>
       )}
       <nav aria-label="Storage areas" className="flex flex-wrap gap-2">
@@ -76,7 +78,7 @@ export function CountSheetView({ sheet, canWrite }: { sheet: CountSheet; canWrit
         busy={finish.isPending}
         error={finish.error ? (isApiError(finish.error) ? finish.error.message : 'Not finished: try again.') : undefined}
         onCancel={() => setAsking(false)}
-        onConfirm={() => finish.mutate(undefined, { onSuccess: () => setAsking(false) })}
+        onConfirm={() => finish.mutate({ params: { id: count.id } }, { onSuccess: () => setAsking(false) })}
       />
     </div>
   );

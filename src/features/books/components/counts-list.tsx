@@ -10,7 +10,7 @@ import { isApiError } from '../../../lib/api-client';
 import { formatDate, formatMoney } from '../../../lib/format';
 import { paths } from '../../../lib/paths';
 import { useStartCount } from '../api/counts';
-import type { StockCount } from '../api/types';
+import type { StockCount } from '../../../shared/contract/books';
 import { localToday } from './dates';
 
 /** Start a count for the site in the top bar, on a date (today unless changed), and open its sheet. */
@@ -20,7 +20,7 @@ export function StartCountForm({ siteId, siteName }: { siteId: string; siteName:
   const navigate = useNavigate();
   const submit = (e: FormEvent) => {
     e.preventDefault();
-    start.mutate({ siteId, countDate }, { onSuccess: (r) => navigate(paths.stockCount.href(r.count.id)) });
+    start.mutate({ body: { siteId, countDate } }, { onSuccess: (r) => navigate(paths.stockCount.href(r.count.id)) });
   };
   const fieldError = isApiError(start.error) ? start.error.fields.countDate : undefined;
   return (
@@ -36,7 +36,7 @@ export function StartCountForm({ siteId, siteName }: { siteId: string; siteName:
   );
 }
 
-/** The site's counts, newest first, with their status and value; each opens its sheet. */
+/** The site's counts, newest first, with their status (and value, for roles that read costs); each opens its sheet. */
 export function CountsList({ counts, currency }: { counts: StockCount[]; currency: string }) {
   if (counts.length === 0) return <EmptyState title="No stock counts yet" next="Start a count above: the sheet lists every pack this site stocks, by storage area." />;
   const sorted = [...counts].sort((a, b) => (a.countDate === b.countDate ? 0 : a.countDate < b.countDate ? 1 : -1));
@@ -53,7 +53,8 @@ export function CountsList({ counts, currency }: { counts: StockCount[]; currenc
             </p>
           </div>
           <div className="flex items-center gap-4">
-            <span className="text-right tabular-nums">{c.value ? formatMoney(c.value, currency) : '—'}</span>
+            {/* The value comes only to roles that read costs. */}
+            {c.value !== undefined && <span className="text-right tabular-nums">{formatMoney(c.value, currency)}</span>}
             <StatusMark tone={c.status === 'finished' ? 'good' : 'attention'}>{c.status === 'finished' ? 'Finished' : 'In progress'}</StatusMark>
           </div>
         </li>

@@ -8,7 +8,8 @@ import { SkeletonRows } from '../../../components/ui/skeleton';
 import { isApiError } from '../../../lib/api-client';
 import { formatDate } from '../../../lib/format';
 import { isDecimalString } from '../../../shared/decimal';
-import { useSaveSalesDay, useSalesDay, type ManualDay } from '../api/sales-days';
+import type { ManualDay } from '../../../shared/contract/books';
+import { useSaveSalesDay, useSalesDay } from '../api/sales-days';
 import { localToday } from './dates';
 
 interface Row {
@@ -85,12 +86,14 @@ function DayForm({ day, drinkSizes, currency }: { day: ManualDay; drinkSizes: { 
     setProblem(null);
     save.mutate(
       {
-        siteId,
-        soldOn,
-        lines: filled.map((r) => {
-          const netSales = r.netSales.trim();
-          return { drinkSizeId: r.drinkSizeId, quantity: r.quantity.trim(), netSales, tax: r.saved && r.saved.netSales === netSales ? r.saved.tax : null };
-        }),
+        body: {
+          siteId,
+          soldOn,
+          lines: filled.map((r) => {
+            const netSales = r.netSales.trim();
+            return { drinkSizeId: r.drinkSizeId, quantity: r.quantity.trim(), netSales, tax: r.saved && r.saved.netSales === netSales ? r.saved.tax : null };
+          }),
+        },
       },
       { onSuccess: (r) => setSaved(`Saved ${lines(r.lines.length)} for ${formatDate(r.soldOn)}${r.replaced ? `, in place of the ${lines(r.replaced)} saved before` : ''}.`) },
     );

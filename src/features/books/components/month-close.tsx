@@ -3,7 +3,7 @@ import { Button } from '../../../components/ui/button';
 import { ConfirmDialog } from '../../../components/ui/confirm-dialog';
 import { StatusMark } from '../../../components/ui/status-mark';
 import { formatDate } from '../../../lib/format';
-import { type Role } from '../../../shared/capabilities';
+import { can, type Role } from '../../../shared/capabilities';
 import { usePeriodAction, usePeriods } from '../api/periods';
 
 const monthLabel = (m: string) => new Date(`${m}-01T12:00:00Z`).toLocaleDateString(undefined, { month: 'long', year: 'numeric', timeZone: 'UTC' });
@@ -15,8 +15,8 @@ export function MonthClose({ month, closed, role, ended }: { month: string; clos
   const reopen = usePeriodAction('reopen');
   const [asking, setAsking] = useState<'close' | 'reopen' | null>(null);
   const period = periods.data?.periods.find((p) => p.month === month);
-  const canClose = role === 'owner' || role === 'bookkeeper';
-  const canReopen = role === 'owner';
+  const canClose = can(role, 'periods.close');
+  const canReopen = can(role, 'periods.reopen');
   const action = asking === 'close' ? close : reopen;
   return (
     <section aria-labelledby="month-close-heading" className="flex flex-col gap-2 rounded-lg border border-rule bg-card p-4">
@@ -54,7 +54,7 @@ export function MonthClose({ month, closed, role, ended }: { month: string; clos
         confirmLabel={asking === 'close' ? 'Close the month' : 'Reopen the month'}
         busy={action.isPending}
         error={action.error ? action.error.message : undefined}
-        onConfirm={() => action.mutate({ month }, { onSuccess: () => setAsking(null) })}
+        onConfirm={() => action.mutate({ params: { month }, body: {} }, { onSuccess: () => setAsking(null) })}
         onCancel={() => setAsking(null)}
       />
     </section>

@@ -6,8 +6,7 @@ import { StatusMark } from '../../../components/ui/status-mark';
 import { SortHeader, Table, TableFilters, TableSearch, Td, THead, useSortedRows } from '../../../components/ui/table';
 import { matchesSearch } from '../../../components/ui/table-rows';
 import { formatDate, formatMoney, formatQuantity } from '../../../lib/format';
-import type { SalesDay } from '../api/sales-days';
-import type { SalesImport } from '../api/types';
+import type { SalesDay, SalesImport } from '../../../shared/contract/books';
 
 const STATUS = { accepted: { tone: 'good', label: 'Accepted' }, pending: { tone: 'attention', label: 'Not accepted' }, discarded: { tone: 'neutral', label: 'Discarded' } } as const;
 

@@ -10,7 +10,7 @@ import { cx, focusRing } from '../../../components/ui/cx';
 import { isApiError } from '../../../lib/api-client';
 import { formatDate, formatMoney, formatQuantity } from '../../../lib/format';
 import { uploadTillFile, useAcceptImport, useDiscardImport, usePreviewImport } from '../api/sales-import';
-import type { ColumnMapping, DateFormat, ImportPreview, UploadResult } from '../api/types';
+import type { ColumnMapping, DateFormat, ImportPreview, UploadResult } from '../../../shared/contract/books';
 
 type ImportError = ImportPreview['errors'][number];
 
@@ -286,7 +286,7 @@ export function TillImport({ siteId }: { siteId: string }) {
   const runCheck = () => {
     if (!upload || !draft) return;
     check.mutate(
-      { id: upload.import.id, columns: mappingOf(draft) },
+      { params: { id: upload.import.id }, body: { columns: mappingOf(draft) } },
       {
         onSuccess: (p) => {
           setPreview(p);
@@ -300,7 +300,7 @@ export function TillImport({ siteId }: { siteId: string }) {
   const runAccept = () => {
     if (!upload || !draft || !preview) return;
     accept.mutate(
-      { id: upload.import.id, columns: mappingOf(draft), items: preview.items.map((i) => ({ tillItem: i.tillItem, tillSize: i.tillSize, drinkSizeId: choice[itemKey(i)] })) },
+      { params: { id: upload.import.id }, body: { columns: mappingOf(draft), items: preview.items.map((i) => ({ tillItem: i.tillItem, tillSize: i.tillSize, drinkSizeId: choice[itemKey(i)] })) } },
       {
         onSuccess: (r) => {
           reset();
@@ -311,7 +311,7 @@ export function TillImport({ siteId }: { siteId: string }) {
   };
 
   const startOver = () => {
-    if (upload) discard.mutate(upload.import.id);
+    if (upload) discard.mutate({ params: { id: upload.import.id } });
     reset();
   };
 

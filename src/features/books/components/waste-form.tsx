@@ -7,18 +7,9 @@ import { isApiError } from '../../../lib/api-client';
 import { formatMoney, formatQuantity } from '../../../lib/format';
 import { D, isDecimalString } from '../../../shared/decimal';
 import { BASE_UNIT_OF, UNIT_CODES, UNITS, type BaseUnit, type UnitCode } from '../../../shared/units';
-import { useRecordWaste, type WasteInput } from '../api/waste';
-import type { WasteEntry } from '../api/types';
+import { useRecordWaste } from '../api/waste';
+import type { WasteChoice, WasteEntry } from '../../../shared/contract/books';
 import { localToday } from './dates';
-
-/** Something that can be wasted: an ingredient or preparation (measured in units of its dimension) or a drink in one cup size (counted in cups). */
-export interface WasteChoice {
-  kind: WasteInput['item']['kind'];
-  id: string;
-  name: string;
-  /** For ingredients and preparations: the unit they are costed in. */
-  baseUnit?: BaseUnit;
-}
 
 /** The reasons a barista picks most often; anything else is typed. */
 export const WASTE_REASONS = ['Out of date', 'Spilled or dropped', 'Drink remade', 'Left over at close', 'Poured for testing or training', 'Damaged on delivery'] as const;
@@ -34,8 +25,9 @@ function unitsFor(base: BaseUnit): UnitCode[] {
 type Errors = Partial<Record<'item' | 'quantity' | 'unit' | 'reason' | 'occurredOn', string>>;
 
 /**
- * Records one waste entry. The value at cost comes back from the server (it knows the prices in
- * force on the day), and is shown once the entry appears in the month's list.
+ * Records one waste entry. For roles that read costs, its value at cost comes back from the
+ * server (it knows the prices in force on the day), and is shown once the entry appears in the
+ * month's list.
  */
 export function WasteForm({ siteId, choices, entries, currency }: { siteId: string; choices: WasteChoice[]; entries: WasteEntry[] | undefined; currency: string | undefined }) {
   const [key, setKey] = useState('');
@@ -75,7 +67,7 @@ export function WasteForm({ siteId, choices, entries, currency }: { siteId: stri
       return;
     }
     record.mutate(
-      { siteId, occurredOn, item: { kind: chosen.kind, id: chosen.id }, quantity: quantity.trim(), unit: chosen.kind === 'drinkSize' ? null : unit, reason: why },
+      { body: { siteId, occurredOn, item: { kind: chosen.kind, id: chosen.id }, quantity: quantity.trim(), unit: chosen.kind === 'drinkSize' ? null : (unit as UnitCode), reason: why } },
       {
         onSuccess: (r) => {
           setSavedId(r.entry.id);
@@ -155,9 +147,14 @@ export function WasteForm({ siteId, choices, entries, currency }: { siteId: stri
               <span aria-hidden="true" className="text-olive">
                 ✓{' '}
               </span>
-              Recorded: {formatQuantity(saved.quantity, saved.unit ? (UNITS[saved.unit as UnitCode]?.symbol ?? saved.unit) : 'cups')} of {saved.item.name}, worth{' '}
-              <span className="font-bold tabular-nums">{saved.value && currency ? formatMoney(saved.value, currency) : 'not yet costed'}</span>
-              {saved.problem ? ` (${saved.problem})` : ''}
+              Recorded: {formatQuantity(saved.quantity, saved.unit ? (UNITS[saved.unit as UnitCode]?.symbol ?? saved.unit) : 'cups')} of {saved.item.name}
+              {/* Its value comes only to roles that read costs. */}
+              {saved.value !== undefined && (
+                <>
+                  , worth <span className="font-bold tabular-nums">{saved.value && currency ? formatMoney(saved.value, currency) : 'not yet costed'}</span>
+                  {saved.problem ? ` (${saved.problem})` : ''}
+                </>
+              )}
             </span>
           )}
         </p>

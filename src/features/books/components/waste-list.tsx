@@ -11,14 +11,19 @@ import { formatDate, formatMoney, formatQuantity } from '../../../lib/format';
 import { D, dec } from '../../../shared/decimal';
 import { UNITS, isUnitCode } from '../../../shared/units';
 import { useDeleteWaste } from '../api/waste';
-import type { WasteEntry } from '../api/types';
+import type { WasteEntry } from '../../../shared/contract/books';
 
 type SortKey = 'occurredOn' | 'item' | 'quantity' | 'reason' | 'value';
 
 const unitLabel = (e: WasteEntry) => (e.unit === null ? (e.quantity === '1' ? 'cup' : 'cups') : isUnitCode(e.unit) ? UNITS[e.unit].symbol : e.unit);
 
-/** The month's waste at cost, newest first, with the month's total; entries can be taken back by those who record waste. */
-export function WasteList({ entries, total, currency, canDelete }: { entries: WasteEntry[]; total: string; currency: string; canDelete: boolean }) {
+/**
+ * The month's waste, newest first; for roles that read costs (the answer then carries the
+ * month's `total`) each entry's value at cost and the totals. Entries can be taken back by those
+ * who record waste.
+ */
+export function WasteList({ entries, total, currency, canDelete }: { entries: WasteEntry[]; total: string | undefined; currency: string; canDelete: boolean }) {
+  const valued = total !== undefined;
   const [removing, setRemoving] = useState<WasteEntry | null>(null);
   const [search, setSearch] = useState('');
   const [reason, setReason] = useState('');
@@ -52,7 +57,7 @@ export function WasteList({ entries, total, currency, canDelete }: { entries: Wa
             <SortHeader label="Item" sortKey="item" sort={sort} onSort={onSort} />
             <SortHeader label="Quantity" sortKey="quantity" sort={sort} onSort={onSort} figure />
             <SortHeader label="Why" sortKey="reason" sort={sort} onSort={onSort} />
-            <SortHeader label="Value at cost" sortKey="value" sort={sort} onSort={onSort} figure />
+            {valued && <SortHeader label="Value at cost" sortKey="value" sort={sort} onSort={onSort} figure />}
             {canDelete && <Th><span className="sr-only">Actions</span></Th>}
           </tr>
         </THead>
@@ -66,7 +71,7 @@ export function WasteList({ entries, total, currency, canDelete }: { entries: Wa
               </Td>
               <Td figure className="whitespace-nowrap">{formatQuantity(e.quantity, unitLabel(e))}</Td>
               <Td>{e.reason}</Td>
-              <Td figure>{e.value ? formatMoney(e.value, currency) : <span className="text-muted" title={e.problem ?? undefined}>not costed</span>}</Td>
+              {valued && <Td figure>{e.value ? formatMoney(e.value, currency) : <span className="text-muted" title={e.problem ?? undefined}>not costed</span>}</Td>}
               {canDelete && (
                 <Td>
                   <Button variant="quiet" size="sm" onClick={() => setRemoving(e)} aria-label={`Remove the waste of ${e.item.name} on ${formatDate(e.occurredOn)}`}>
@@ -77,6 +82,7 @@ export function WasteList({ entries, total, currency, canDelete }: { entries: Wa
             </tr>
           ))}
         </tbody>
+        {valued && (
         <tfoot>
           {filtered && (
             <tr>
@@ -87,10 +93,11 @@ export function WasteList({ entries, total, currency, canDelete }: { entries: Wa
           )}
           <tr>
             <Td className="font-bold" colSpan={4}>Total this month</Td>
-            <Td figure className="font-bold" data-testid="waste-total">{formatMoney(total, currency)}</Td>
+            <Td figure className="font-bold" data-testid="waste-total">{formatMoney(total as string, currency)}</Td>
             {canDelete && <Td />}
           </tr>
         </tfoot>
+        )}
       </Table>
       {sorted.length === 0 && <EmptyState title="No waste matches" next="Clear the search or choose every reason." />}
       <ConfirmDialog
@@ -101,7 +108,7 @@ export function WasteList({ entries, total, currency, canDelete }: { entries: Wa
         busy={remove.isPending}
         error={remove.error ? (isApiError(remove.error) ? remove.error.message : 'Not removed: try again.') : undefined}
         onCancel={() => setRemoving(null)}
-        onConfirm={() => removing && remove.mutate(removing.id, { onSuccess: () => setRemoving(null) })}
+        onConfirm={() => removing && remove.mutate({ params: { id: removing.id } }, { onSuccess: () => setRemoving(null) })}
       />
     </div>
   );
