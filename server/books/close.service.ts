@@ -1,7 +1,7 @@
 import type { Knex } from 'knex';
 import { monthBounds, nextDay } from '../../src/shared/books';
 import { conflict } from '../platform/errors';
-import { today } from '../costing/shared';
+import { utcToday as today } from '../platform/clock';
 import { computeCogs } from './cogs.service';
 import { isMonthClosed, listPeriods, lockPeriod, monthLabel, type PeriodOut } from './periods.service';
 

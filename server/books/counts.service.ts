@@ -4,7 +4,7 @@ import { D, dec } from '../../src/shared/decimal';
 import { writeMoney } from '../../src/shared/money';
 import { rules } from '../../src/shared/checks';
 import { conversionFactor, UNIT_CODES, UnitConversionError, type BaseUnit } from '../../src/shared/units';
-import { decimalString } from '../costing/shared';
+import { decimalString } from '../../src/shared/schemas/costing';
 import { isoDate } from '../../src/shared/schemas/fields';
 import { qty } from '../platform/present';
 import { badRequest, conflict, invalidInput, notFound } from '../platform/errors';

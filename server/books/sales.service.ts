@@ -5,7 +5,7 @@ import { monthBounds, monthOf, monthString } from '../../src/shared/books';
 import { D, dec } from '../../src/shared/decimal';
 import { writeMoney } from '../../src/shared/money';
 import { rules } from '../../src/shared/checks';
-import { decimalString } from '../costing/shared';
+import { decimalString } from '../../src/shared/schemas/costing';
 import { isoDate } from '../../src/shared/schemas/fields';
 import { qty } from '../platform/present';
 import { AppError, badRequest, conflict, notFound } from '../platform/errors';
