@@ -10,7 +10,7 @@ import { allergenCaution, allergenCode, allergensSchema, baseUnit, measureOutSch
 
 export const ingredientCategory = z.enum(INGREDIENT_CATEGORIES, { error: `Choose a category: ${INGREDIENT_CATEGORIES.join(', ')}.` });
 
-export const measureInSchema = z.object({ name: nameOf('measure', 60), quantity: positiveQuantity, unit: unitCode });
+export const measureInSchema = z.object({ name: nameOf('measure'), quantity: positiveQuantity, unit: unitCode });
 export type MeasureIn = z.input<typeof measureInSchema>;
 
 const packFields = {
