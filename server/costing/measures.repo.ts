@@ -1,13 +1,7 @@
 import type { Knex } from 'knex';
+import type { MeasureRow } from './cost-model.repo';
 
-export interface MeasureRow {
-  id: string;
-  ingredient_id: string | null;
-  preparation_id: string | null;
-  name: string;
-  quantity: string;
-  unit: string;
-}
+export type { MeasureRow };
 
 const COLUMNS = ['id', 'ingredient_id', 'preparation_id', 'name', 'quantity', 'unit'];
 
