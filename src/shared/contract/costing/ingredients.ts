@@ -159,7 +159,7 @@ export const updatePack = endpoint({
 
 export const deletePack = endpoint({
   method: 'DELETE', path: '/api/packs/:id', access: 'costs.write',
-  summary: 'Removes a pack; one on a purchase order, delivery, count or waste entry is archived instead (hidden from lists and pickers, kept by history).',
+  summary: 'Removes a pack; one that a purchase order, a delivery or a stock count names is archived instead (hidden from lists and pickers, kept by history).',
   response: null,
 });
 
