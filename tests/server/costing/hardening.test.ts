@@ -5,7 +5,7 @@ import { randomUUID } from 'node:crypto';
 import { fixedClock } from '../../../server/platform/clock';
 import { startTestApp, type TestContext } from '../../helpers/context';
 import { makeBusiness, signIn, suffix } from '../../helpers/factories';
-import { makeDrink, makeIngredient, makeSize, makeSupplier } from '../../helpers/costing-factories';
+import { makeDrink, makeIngredient, makePreparation, makeSize, makeSupplier } from '../../helpers/costing-factories';
 import { DOCUMENTED_REQUEST, DOCUMENTED_RESPONSE } from '../../helpers/costing-examples';
 
 let ctx: TestContext;
@@ -159,6 +159,21 @@ describe('a pack that history remembers is archived, not lost (item 6)', () => {
     // The retired drink's build still points at it.
     expect((await ctx.db('ingredients').where({ id: ing.id }).first('archived_at')).archived_at).not.toBeNull();
     expect(await ctx.db('build_lines').where({ drink_size_id: drink.drinkSizeIds[0] }).pluck('ingredient_id')).toEqual([ing.id]);
+  });
+
+  test('a preparation that waste was logged against is archived when deleted; the waste keeps it', async () => {
+    const { biz, owner } = await business();
+    const b = biz.businessId;
+    const sugar = await makeIngredient(ctx.db, b);
+    const prep = await makePreparation(ctx.db, b, { yieldQuantity: '1', yieldUnit: 'l', lines: [{ ingredientId: sugar.id, quantity: '1', unit: 'kg' }] });
+    await ctx.db('waste_entries').insert({ business_id: b, site_id: biz.siteIds[0], occurred_on: '2026-11-30', preparation_id: prep.id, quantity: '0.5', unit: 'l', reason: 'Spilt' });
+    expect((await owner.delete(`/api/preparations/${prep.id}`)).status).toBe(204);
+    expect((await ctx.db('preparations').where({ id: prep.id }).first('archived_at')).archived_at).not.toBeNull();
+    expect((await owner.get(`/api/preparations/${prep.id}`)).status).toBe(404);
+    expect(await ctx.db('waste_entries').where({ business_id: b }).pluck('preparation_id')).toEqual([prep.id]);
+    // Only the archived preparation uses the sugar now: it goes too, archived (the preparation's lines still name it).
+    expect((await owner.delete(`/api/ingredients/${sugar.id}`)).status).toBe(204);
+    expect((await ctx.db('ingredients').where({ id: sugar.id }).first('archived_at')).archived_at).not.toBeNull();
   });
 });
 
