@@ -13,7 +13,7 @@ import { createMailer } from '../../server/platform/mailer';
 import { hashPassword } from '../../server/auth/passwords';
 import { loadCostRows, loadMenuRows } from '../../server/costing/cost-model.repo';
 import { buildLoadedCostModel } from '../../server/costing/cost-model.service';
-import { menuCostingFrom } from '../../server/costing/menu.service';
+import { menuCostingFrom } from '../../server/costing/menu.presenter';
 import { seedLargeMenu } from './large-menu';
 import { measure, ms, row } from './measure';
 import { touchCosting } from './touch';

@@ -1,4 +1,5 @@
 import type { Knex } from 'knex';
+import { businessToday, systemClock } from '../platform/clock';
 
 // Plain rows for the cost model of one business: a fixed handful of queries
 // whatever the size of the menu (no per-drink or per-item queries).
@@ -166,11 +167,13 @@ export type MenuRows = Awaited<ReturnType<typeof loadMenuRows>>;
 
 /**
  * Every live drink, its sizes and build lines: three queries for the whole menu (or one drink).
- * `price` is the menu price in force on `asOf` (default today): the latest planned entry of
+ * `price` is the menu price in force on `asOf` (default the business's today): the latest planned entry of
  * menu_price_history dated on or before it, else drink_sizes.price (see the migration
  * menu_price_schedule: due planned prices are read this way, no background job needed).
  */
-export async function loadMenuRows(db: Knex, businessId: string, drinkId?: string, asOf: string = new Date().toISOString().slice(0, 10)) {
+export async function loadMenuRows(db: Knex, businessId: string, drinkId?: string, asOf?: string) {
+  // Costing's services pass the day from deps.clock; callers that do not yet get the business's today.
+  const day = asOf ?? (await businessToday(db, systemClock, businessId));
   const drinksQ = db('drinks').where({ business_id: businessId }).whereNull('archived_at').orderBy([{ column: 'category' }, { column: 'name' }]).select('id', 'name', 'category', 'temperature');
   const sizesQ = db('drink_sizes as ds')
     .join('cup_sizes as cs', 'cs.id', 'ds.size_id')
@@ -182,7 +185,7 @@ export async function loadMenuRows(db: Knex, businessId: string, drinkId?: strin
          select h.new_price from menu_price_history h
          where h.drink_size_id = ds.id and h.status = 'planned' and h.effective_from <= ?::date
          order by h.effective_from desc, h.changed_at desc limit 1) mp on true`,
-      [asOf],
+      [day],
     )
     .orderBy([{ column: 'cs.position' }, { column: 'cs.volume_ml' }])
     .select('ds.id', 'ds.drink_id', 'ds.size_id', 'cs.name as size_name', 'cs.volume_ml', 'cs.position', db.raw('coalesce(mp.new_price, ds.price) as price'), 'ds.price_version');

@@ -4,13 +4,13 @@ import { isAllergenCode, sortAllergens, type AllergenCode } from '../../src/shar
 import { dec, type Dec } from '../../src/shared/decimal';
 import { minorUnitStep } from '../../src/shared/money';
 import type { PricingPolicy } from '../../src/shared/pricing';
-import type { BaseUnit } from '../../src/shared/units';
+import { yieldBaseUnit, type BaseUnit } from '../../src/shared/units';
+import { businessToday, systemClock } from '../platform/clock';
 import { loadCostRows, type CostRows, type IngredientRow, type LineRow, type MeasureRow, type PackPriceRow, type PolicyRow, type PreparationLineRow, type PreparationRow } from './cost-model.repo';
-import { today, yieldBaseUnit } from './shared';
 import { groupBy } from '../../src/shared/collections';
 
 export interface CostModelOptions {
-  /** Prices in force on this date (YYYY-MM-DD); default today (UTC). */
+  /** Prices in force on this date (YYYY-MM-DD); default the business's today (see {@link dayOrToday}). */
   asOf?: string;
   /**
    * Prices to use instead of the stored ones, keyed by pack id (that pack's price) or by
@@ -121,7 +121,17 @@ const ITEM_PATH = /^(ingredients|preparations)\[(\d+)\]/;
  * lines that use them report it instead of throwing.
  */
 export async function loadCostModel(db: Knex, businessId: string, options: CostModelOptions = {}): Promise<LoadedCostModel> {
-  return buildLoadedCostModel(await loadCostRows(db, businessId, options.asOf ?? today()), options);
+  const asOf = await dayOrToday(db, businessId, options.asOf);
+  return buildLoadedCostModel(await loadCostRows(db, businessId, asOf), { ...options, asOf });
+}
+
+/**
+ * The day asked for, else the business's today in its own time zone. Costing's services always
+ * ask with the day from `deps.clock` (so tests can pin it); the default, read from the system
+ * clock, is for callers in other domains that do not pass a day yet.
+ */
+export async function dayOrToday(db: Knex, businessId: string, asOf: string | undefined): Promise<string> {
+  return asOf ?? businessToday(db, systemClock, businessId);
 }
 
 /**

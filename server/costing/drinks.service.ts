@@ -1,84 +1,51 @@
-import type { Knex } from 'knex';
-import { z } from 'zod';
-import { rules } from '../../src/shared/checks';
+import type { z } from 'zod';
+import type { copyBuildSchema, Drink, DrinkSummary, drinkInSchema } from '../../src/shared/contract/costing';
 import { dec } from '../../src/shared/decimal';
-import { writeMoney } from '../../src/shared/money';
+import { businessToday } from '../platform/clock';
+import { guardWrite } from '../platform/db-errors';
+import type { AppDeps } from '../platform/deps';
 import { invalidInput, notFound } from '../platform/errors';
 import { foldDuePrices } from '../repricing/schedule.repo';
-import { loadMenuRows } from './cost-model.repo';
-import { checkLines, lineColumns, lineInSchema, presentLine, throwIfFields } from './lines';
-import { decimalString, name, optionalText, today } from './shared';
-import { groupBy } from '../../src/shared/collections';
-import { guardWrite } from '../platform/db-errors';
-import { qty } from '../platform/present';
+import { findBusinessMoney, loadMenuRows } from './cost-model.repo';
+import { presentDrink, presentDrinkSummaries } from './drinks.presenter';
+import {
+  archiveDrink,
+  deleteDrinkSizes,
+  findLiveDrink,
+  insertDrink,
+  insertDrinkSize,
+  insertPriceHistory,
+  loadLineNames,
+  lockDrinkSizes,
+  replaceBuildLines,
+  setDrinkSizePrice,
+  updateDrink,
+  type DrinkColumns,
+} from './drinks.repo';
+import { checkLines, throwIfFields } from './lines.service';
+import { knownSizeIds } from './sizes.repo';
 
-export const drinkInSchema = z.object({
-  name: name('drink'),
-  category: z.string({ error: 'Choose a category.' }).trim().min(1, 'Choose a category.').max(60),
-  temperature: z.enum(['hot', 'iced'], { error: 'Choose hot or iced.' }),
-  notes: optionalText(),
-  expectedWeeklyCups: z.number().int().min(0).max(1_000_000).nullish(),
-  sizes: z
-    .array(z.object({ sizeId: z.uuid('Choose a cup size.'), currentPrice: decimalString(rules.positive).nullish(), lines: z.array(lineInSchema).max(200) }))
-    .min(1, 'Offer at least one cup size.')
-    .max(20),
-});
-export type DrinkIn = z.output<typeof drinkInSchema>;
-export const copyBuildSchema = z.object({ fromSizeId: z.uuid('Choose a cup size.'), toSizeId: z.uuid('Choose a cup size.') });
+type DrinkIn = z.output<typeof drinkInSchema>;
 
-export async function getDrink(db: Knex, businessId: string, id: string) {
-  const drink = await db('drinks').where({ business_id: businessId, id }).whereNull('archived_at').first('id', 'name', 'category', 'temperature', 'notes', 'expected_weekly_cups');
+export async function list(deps: AppDeps, businessId: string): Promise<DrinkSummary[]> {
+  const asOf = await businessToday(deps.db, deps.clock, businessId);
+  const [rows, business] = await Promise.all([loadMenuRows(deps.db, businessId, undefined, asOf), findBusinessMoney(deps.db, businessId)]);
+  return presentDrinkSummaries(rows, business.currency);
+}
+
+export async function get(deps: AppDeps, businessId: string, id: string): Promise<Drink> {
+  const { db } = deps;
+  const drink = await findLiveDrink(db, businessId, id);
   if (!drink) throw notFound('That drink');
-  const [{ sizes, lines }, business, items, measures] = await Promise.all([
-    loadMenuRows(db, businessId, id),
-    db('businesses').where({ id: businessId }).first('currency'),
-    db.raw(
-      `select id, name from ingredients where id in (select ingredient_id from build_lines bl join drink_sizes ds on ds.id = bl.drink_size_id where ds.drink_id = :id)
-       union all select id, name from preparations where id in (select preparation_id from build_lines bl join drink_sizes ds on ds.id = bl.drink_size_id where ds.drink_id = :id)`,
-      { id },
-    ),
-    db('measures as m').join('build_lines as bl', 'bl.measure_id', 'm.id').join('drink_sizes as ds', 'ds.id', 'bl.drink_size_id').where('ds.drink_id', id).distinct('m.id', 'm.name'),
-  ]);
-  const itemNames = new Map<string, string>(items.rows.map((r: { id: string; name: string }) => [r.id, r.name]));
-  const measureNames = new Map<string, string>(measures.map((m: { id: string; name: string }) => [m.id, m.name]));
-  const names = { itemName: (i: string) => itemNames.get(i) ?? '', measureName: (m: string) => measureNames.get(m) ?? null };
-  const bySize = groupBy(lines, (l) => l.drink_size_id);
-  return {
-    drink: {
-      id: drink.id,
-      name: drink.name,
-      category: drink.category,
-      temperature: drink.temperature,
-      notes: drink.notes,
-      expectedWeeklyCups: drink.expected_weekly_cups,
-      sizes: sizes.map((s) => ({
-        id: s.id,
-        sizeId: s.size_id,
-        name: s.size_name,
-        volumeMl: qty(s.volume_ml),
-        currentPrice: s.price === null ? null : writeMoney(s.price, business.currency),
-        priceVersion: s.price_version,
-        lines: (bySize.get(s.id) ?? []).map((l) => presentLine(l, names)),
-      })),
-    },
-  };
+  const asOf = await businessToday(db, deps.clock, businessId);
+  const [rows, business, names] = await Promise.all([loadMenuRows(db, businessId, id, asOf), findBusinessMoney(db, businessId), loadLineNames(db, businessId, id)]);
+  return presentDrink(drink, rows, business.currency, names);
 }
 
-export async function listDrinks(db: Knex, businessId: string) {
-  const [{ drinks, sizes }, business] = await Promise.all([loadMenuRows(db, businessId), db('businesses').where({ id: businessId }).first('currency')]);
-  const byDrink = groupBy(sizes, (s) => s.drink_id);
-  return {
-    drinks: drinks.map((d) => ({
-      ...d,
-      sizes: (byDrink.get(d.id) ?? []).map((s) => ({ sizeId: s.size_id, name: s.size_name, currentPrice: s.price === null ? null : writeMoney(s.price, business.currency) })),
-    })),
-  };
-}
-
-async function validate(db: Knex, businessId: string, input: DrinkIn) {
+/** Every cup size is this business's and listed once; every line names a live item of it. */
+async function validate({ db }: AppDeps, businessId: string, input: DrinkIn) {
   const fields: Record<string, string> = {};
-  const sizeIds = input.sizes.map((s) => s.sizeId);
-  const known = new Set((await db('cup_sizes').where({ business_id: businessId }).whereIn('id', sizeIds).select('id')).map((r) => r.id as string));
+  const known = await knownSizeIds(db, businessId, input.sizes.map((s) => s.sizeId));
   const seen = new Set<string>();
   input.sizes.forEach((s, i) => {
     if (!known.has(s.sizeId)) fields[`sizes[${i}].sizeId`] = 'That cup size was not found.';
@@ -89,87 +56,84 @@ async function validate(db: Knex, businessId: string, input: DrinkIn) {
   throwIfFields(fields);
 }
 
-/** Writes the whole drink (its row, sizes, build lines, price changes) inside `trx`. */
-async function writeDrink(trx: Knex, businessId: string, userId: string, drinkId: string, input: DrinkIn) {
-  const existing = await trx('drink_sizes').where({ business_id: businessId, drink_id: drinkId }).forUpdate().select('id', 'size_id', 'price');
-  await foldDuePrices(trx, businessId, existing); // planned menu prices now due go in first (repricing)
-  const bySize = new Map(existing.map((e) => [e.size_id as string, e]));
+const samePrice = (a: string | null, b: string | null) => (a === null || b === null ? a === b : dec(a).eq(dec(b)));
+
+/** Writes the drink's sizes, their builds and price changes inside `trx`. */
+async function writeSizes(trx: AppDeps['db'], businessId: string, userId: string, drinkId: string, input: DrinkIn, today: string) {
+  const existing = await lockDrinkSizes(trx, businessId, drinkId);
+  await foldDuePrices(trx, businessId, existing, today); // planned menu prices now due go in first (repricing)
+  const bySize = new Map(existing.map((e) => [e.size_id, e]));
   const keep = new Set(input.sizes.map((s) => s.sizeId));
-  const gone = existing.filter((e) => !keep.has(e.size_id)).map((e) => e.id);
-  if (gone.length) await trx('drink_sizes').whereIn('id', gone).delete();
+  await deleteDrinkSizes(trx, businessId, existing.filter((e) => !keep.has(e.size_id)).map((e) => e.id));
   for (const s of input.sizes) {
     const price = s.currentPrice ?? null;
     const old = bySize.get(s.sizeId);
-    let dsId: string;
+    let drinkSizeId: string;
     if (old) {
-      dsId = old.id;
-      const changed = (old.price === null) !== (price === null) || (old.price !== null && price !== null && !dec(old.price).eq(dec(price)));
-      if (changed) {
-        await trx('drink_sizes').where({ id: dsId }).update({ price, price_version: trx.raw('price_version + 1'), updated_at: trx.fn.now() });
+      drinkSizeId = old.id;
+      if (!samePrice(old.price, price)) {
+        await setDrinkSizePrice(trx, businessId, drinkSizeId, price);
         if (price !== null) {
-          await trx('menu_price_history').insert({ business_id: businessId, drink_size_id: dsId, old_price: old.price, new_price: price, effective_from: today(), reason: 'Edited in the drink editor', changed_by: userId });
+          await insertPriceHistory(trx, businessId, { drink_size_id: drinkSizeId, old_price: old.price, new_price: price, effective_from: today, reason: 'Edited in the drink editor', changed_by: userId });
         }
       }
-      await trx('build_lines').where({ business_id: businessId, drink_size_id: dsId }).delete();
     } else {
-      const [row] = await trx('drink_sizes').insert({ business_id: businessId, drink_id: drinkId, size_id: s.sizeId, price }).returning('id');
-      dsId = row.id;
+      drinkSizeId = await insertDrinkSize(trx, businessId, drinkId, s.sizeId, price);
       if (price !== null) {
-        await trx('menu_price_history').insert({ business_id: businessId, drink_size_id: dsId, old_price: null, new_price: price, effective_from: today(), reason: 'First price', changed_by: userId });
+        await insertPriceHistory(trx, businessId, { drink_size_id: drinkSizeId, old_price: null, new_price: price, effective_from: today, reason: 'First price', changed_by: userId });
       }
     }
-    if (s.lines.length) await trx('build_lines').insert(s.lines.map((l, i) => ({ business_id: businessId, drink_size_id: dsId, ...lineColumns(l, i) })));
+    await replaceBuildLines(trx, businessId, drinkSizeId, s.lines);
   }
 }
 
-function drinkColumns(input: DrinkIn) {
+function columns(input: DrinkIn): DrinkColumns {
   return { name: input.name, category: input.category, temperature: input.temperature, notes: input.notes ?? null, expected_weekly_cups: input.expectedWeeklyCups ?? null };
 }
 
-export async function createDrink(db: Knex, businessId: string, userId: string, input: DrinkIn) {
-  await validate(db, businessId, input);
+export async function create(deps: AppDeps, businessId: string, userId: string, input: DrinkIn): Promise<Drink> {
+  await validate(deps, businessId, input);
+  const today = await businessToday(deps.db, deps.clock, businessId);
   const id = await guardWrite('A drink', () =>
-    db.transaction(async (trx) => {
-      const [row] = await trx('drinks').insert({ business_id: businessId, ...drinkColumns(input) }).returning('id');
-      await writeDrink(trx, businessId, userId, row.id, input);
-      return row.id as string;
+    deps.db.transaction(async (trx) => {
+      const drinkId = await insertDrink(trx, businessId, columns(input));
+      await writeSizes(trx, businessId, userId, drinkId, input, today);
+      return drinkId;
     }),
   );
-  return getDrink(db, businessId, id);
+  return get(deps, businessId, id);
 }
 
 /** PUT: the whole drink, its sizes and their lines replaced in one transaction. */
-export async function replaceDrink(db: Knex, businessId: string, userId: string, id: string, input: DrinkIn) {
-  if (!(await db('drinks').where({ business_id: businessId, id }).whereNull('archived_at').first('id'))) throw notFound('That drink');
-  await validate(db, businessId, input);
+export async function replace(deps: AppDeps, businessId: string, userId: string, id: string, input: DrinkIn): Promise<Drink> {
+  if (!(await findLiveDrink(deps.db, businessId, id))) throw notFound('That drink');
+  await validate(deps, businessId, input);
+  const today = await businessToday(deps.db, deps.clock, businessId);
   await guardWrite('A drink', () =>
-    db.transaction(async (trx) => {
-      await trx('drinks').where({ business_id: businessId, id }).update({ ...drinkColumns(input), updated_at: trx.fn.now() });
-      await writeDrink(trx, businessId, userId, id, input);
+    deps.db.transaction(async (trx) => {
+      await updateDrink(trx, businessId, id, columns(input));
+      await writeSizes(trx, businessId, userId, id, input, today);
     }),
   );
-  return getDrink(db, businessId, id);
+  return get(deps, businessId, id);
 }
 
 /** Archived, not deleted: its price history and past sales keep pointing at it. */
-export async function archiveDrink(db: Knex, businessId: string, id: string) {
-  const n = await db('drinks').where({ business_id: businessId, id }).whereNull('archived_at').update({ archived_at: db.fn.now() });
-  if (!n) throw notFound('That drink');
+export async function archive({ db }: AppDeps, businessId: string, id: string): Promise<void> {
+  if (!(await archiveDrink(db, businessId, id))) throw notFound('That drink');
 }
 
 /** Copies one size's build onto another (adding the size if the drink does not offer it yet). */
-export async function copyBuild(db: Knex, businessId: string, userId: string, id: string, from: string, to: string) {
-  const { drink } = await getDrink(db, businessId, id);
-  const source = drink.sizes.find((s) => s.sizeId === from);
+export async function copyBuild(deps: AppDeps, businessId: string, userId: string, id: string, { fromSizeId, toSizeId }: z.output<typeof copyBuildSchema>): Promise<Drink> {
+  const drink = await get(deps, businessId, id);
+  const source = drink.sizes.find((s) => s.sizeId === fromSizeId);
   if (!source) throw invalidInput({ fromSizeId: 'This drink does not offer that cup size.' });
-  if (from === to) throw invalidInput({ toSizeId: 'Choose a different cup size to copy to.' });
-  type LineIn = DrinkIn['sizes'][number]['lines'][number];
-  const asInput = (lines: typeof source.lines): LineIn[] =>
-    lines.map((l) => ({ ingredientId: l.ingredientId, preparationId: l.preparationId, quantity: l.quantity, unit: l.unit as LineIn['unit'], measureId: l.measureId }));
-  const sizes: DrinkIn['sizes'] = drink.sizes.map((s) => ({ sizeId: s.sizeId, currentPrice: s.currentPrice, lines: asInput(s.lines) }));
-  const target = sizes.find((s) => s.sizeId === to);
-  if (target) target.lines = asInput(source.lines);
-  else sizes.push({ sizeId: to, currentPrice: null, lines: asInput(source.lines) });
+  if (fromSizeId === toSizeId) throw invalidInput({ toSizeId: 'Choose a different cup size to copy to.' });
+  if (!(await knownSizeIds(deps.db, businessId, [toSizeId])).has(toSizeId)) throw invalidInput({ toSizeId: 'That cup size was not found.' });
+  const asInput = (lines: typeof source.lines) =>
+    lines.map((l) => ({ ingredientId: l.ingredientId, preparationId: l.preparationId, quantity: l.quantity, unit: l.unit, measureId: l.measureId }));
+  const sizes: DrinkIn['sizes'] = drink.sizes.map((s) => ({ sizeId: s.sizeId, currentPrice: s.currentPrice, lines: asInput(s.sizeId === toSizeId ? source.lines : s.lines) }));
+  if (!sizes.some((s) => s.sizeId === toSizeId)) sizes.push({ sizeId: toSizeId, currentPrice: null, lines: asInput(source.lines) });
   const input: DrinkIn = { name: drink.name, category: drink.category, temperature: drink.temperature, notes: drink.notes, expectedWeeklyCups: drink.expectedWeeklyCups, sizes };
-  return replaceDrink(db, businessId, userId, id, input);
+  return replace(deps, businessId, userId, id, input);
 }

@@ -1,71 +1,43 @@
 import { Router } from 'express';
+import {
+  addIngredientMeasure,
+  addPack,
+  addPackPrice,
+  addPreparationMeasure,
+  createIngredient,
+  deleteIngredient,
+  deleteMeasure,
+  deletePack,
+  getIngredient,
+  listIngredients,
+  listPackPrices,
+  updateIngredient,
+  updateMeasure,
+  updatePack,
+} from '../../src/shared/contract/costing';
 import type { AppDeps } from '../platform/deps';
-import { allow, uuidParam } from '../platform/http/middleware';
-import { parse } from '../platform/http/validate';
+import { endpointsOf } from '../platform/http/mount';
 import * as ingredients from './ingredients.service';
-import { addMeasure, deleteMeasure, updateMeasure } from './measures.service';
+import * as measures from './measures.service';
 
 export function ingredientsRoutes(deps: AppDeps) {
-  const { db } = deps;
   const r = Router();
-  r.param('id', uuidParam);
-  const id = (p: unknown) => String(p);
+  const on = endpointsOf(r, deps);
+  on(listIngredients, ({ user }) => ingredients.list(deps, user.businessId));
+  on(getIngredient, ({ user, params }) => ingredients.get(deps, user.businessId, params.id));
+  on(createIngredient, ({ user, body }) => ingredients.create(deps, user.businessId, user.id, body));
+  on(updateIngredient, ({ user, params, body }) => ingredients.update(deps, user.businessId, params.id, body));
+  on(deleteIngredient, ({ user, params }) => ingredients.remove(deps, user.businessId, params.id));
 
-  r.get('/api/ingredients', allow('costs.read'), async (req, res) => {
-    res.json(await ingredients.listIngredients(db, req.user!.businessId));
-  });
-  r.get('/api/ingredients/:id', allow('costs.read'), async (req, res) => {
-    res.json(await ingredients.getIngredient(db, req.user!.businessId, id(req.params.id)));
-  });
-  r.post('/api/ingredients', allow('costs.write'), async (req, res) => {
-    const input = parse(ingredients.ingredientInSchema, req.body);
-    res.status(201).json(await ingredients.createIngredient(db, req.user!.businessId, req.user!.id, input));
-  });
-  r.patch('/api/ingredients/:id', allow('costs.write'), async (req, res) => {
-    const input = parse(ingredients.ingredientPatchSchema, req.body);
-    res.json(await ingredients.updateIngredient(db, req.user!.businessId, id(req.params.id), input));
-  });
-  r.delete('/api/ingredients/:id', allow('costs.write'), async (req, res) => {
-    await ingredients.deleteIngredient(db, req.user!.businessId, id(req.params.id));
-    res.status(204).end();
-  });
+  on(addPack, async ({ user, params, body }) => ({ pack: await ingredients.addPack(deps, user.businessId, user.id, params.id, body) }));
+  on(updatePack, async ({ user, params, body }) => ({ pack: await ingredients.changePack(deps, user.businessId, params.id, body) }));
+  on(deletePack, ({ user, params }) => ingredients.removePack(deps, user.businessId, params.id));
+  on(listPackPrices, async ({ user, params }) => ({ prices: await ingredients.listPrices(deps, user.businessId, params.id) }));
+  on(addPackPrice, ({ user, params, body }) => ingredients.addPrice(deps, user.businessId, user.id, params.id, body));
 
-  r.post('/api/ingredients/:id/packs', allow('costs.write'), async (req, res) => {
-    const input = parse(ingredients.packInSchema, req.body);
-    res.status(201).json(await ingredients.addPack(db, req.user!.businessId, req.user!.id, id(req.params.id), input));
-  });
-  r.patch('/api/packs/:id', allow('costs.write'), async (req, res) => {
-    const input = parse(ingredients.packPatchSchema, req.body);
-    res.json(await ingredients.updatePack(db, req.user!.businessId, id(req.params.id), input));
-  });
-  r.delete('/api/packs/:id', allow('costs.write'), async (req, res) => {
-    await ingredients.deletePack(db, req.user!.businessId, id(req.params.id));
-    res.status(204).end();
-  });
-  r.get('/api/packs/:id/prices', allow('costs.read'), async (req, res) => {
-    res.json(await ingredients.listPackPrices(db, req.user!.businessId, id(req.params.id)));
-  });
-  r.post('/api/packs/:id/prices', allow('costs.write'), async (req, res) => {
-    const input = parse(ingredients.priceInSchema, req.body);
-    res.status(201).json(await ingredients.addPackPrice(db, req.user!.businessId, req.user!.id, id(req.params.id), input));
-  });
-
-  r.post('/api/ingredients/:id/measures', allow('costs.write'), async (req, res) => {
-    const input = parse(ingredients.measureInSchema, req.body);
-    res.status(201).json(await addMeasure(db, req.user!.businessId, { ingredientId: id(req.params.id) }, input));
-  });
-  r.post('/api/preparations/:id/measures', allow('costs.write'), async (req, res) => {
-    const input = parse(ingredients.measureInSchema, req.body);
-    res.status(201).json(await addMeasure(db, req.user!.businessId, { preparationId: id(req.params.id) }, input));
-  });
-  r.patch('/api/measures/:id', allow('costs.write'), async (req, res) => {
-    const input = parse(ingredients.measureInSchema.partial(), req.body);
-    res.json(await updateMeasure(db, req.user!.businessId, id(req.params.id), input));
-  });
-  r.delete('/api/measures/:id', allow('costs.write'), async (req, res) => {
-    await deleteMeasure(db, req.user!.businessId, id(req.params.id));
-    res.status(204).end();
-  });
-
+  on(addIngredientMeasure, async ({ user, params, body }) => ({ measure: await measures.add(deps, user.businessId, { ingredientId: params.id }, body) }));
+  on(addPreparationMeasure, async ({ user, params, body }) => ({ measure: await measures.add(deps, user.businessId, { preparationId: params.id }, body) }));
+  on(updateMeasure, async ({ user, params, body }) => ({ measure: await measures.update(deps, user.businessId, params.id, body) }));
+  on(deleteMeasure, ({ user, params }) => measures.remove(deps, user.businessId, params.id));
   return r;
 }

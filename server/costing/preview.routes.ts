@@ -1,24 +1,13 @@
 import { Router } from 'express';
-import { costPreview, CostingInputError } from '../../src/shared/costing';
-import { costPreviewRequestSchema } from '../../src/shared/schemas/costing';
+import { previewCosting } from '../../src/shared/contract/costing';
 import type { AppDeps } from '../platform/deps';
-import { invalidInput } from '../platform/errors';
-import { allow } from '../platform/http/middleware';
-import { parse } from '../platform/http/validate';
+import { endpointsOf } from '../platform/http/mount';
+import { preview } from './preview.service';
 
-export function previewRoutes(_deps: AppDeps) {
+export function previewRoutes(deps: AppDeps) {
   const r = Router();
-
-  // Computes from the request alone and saves nothing: the drink editor calls it as the owner types.
-  r.post('/api/costing/preview', allow('costs.read'), (req, res) => {
-    const request = parse(costPreviewRequestSchema, req.body);
-    try {
-      res.json(costPreview(request));
-    } catch (e) {
-      if (e instanceof CostingInputError) throw invalidInput(e.fields);
-      throw e;
-    }
-  });
-
+  const on = endpointsOf(r, deps);
+  // The drink editor calls it as the owner types.
+  on(previewCosting, ({ body }) => preview(body));
   return r;
 }

@@ -36,3 +36,12 @@ export async function timeZoneOf(db: Knex, businessId: string): Promise<string> 
 export async function businessToday(db: Knex, clock: Clock, businessId: string): Promise<string> {
   return dateIn(await timeZoneOf(db, businessId), clock.now());
 }
+
+/**
+ * @deprecated Today as a UTC calendar date by the system clock, for the callers not yet moved to
+ * `businessToday(db, deps.clock, businessId)` (they once imported it from the costing domain).
+ * New code asks for the business's today.
+ */
+export function utcToday(): string {
+  return dateIn('UTC', systemClock.now());
+}

@@ -2,7 +2,7 @@ import type { Knex } from 'knex';
 import { dec, type Dec } from '../../src/shared/decimal';
 import { currencyMinorUnits, writeMoney } from '../../src/shared/money';
 import type { ApplyInput } from '../../src/shared/schemas/repricing';
-import { today } from '../costing/shared';
+import { utcToday as today } from '../platform/clock';
 import { conflict, invalidInput, notFound } from '../platform/errors';
 import { keepLadder } from './ladder';
 import { businessName, findScenario, lockDrinkSizes, type LockedDrinkSize } from './repricing.repo';

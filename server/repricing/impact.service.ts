@@ -5,7 +5,7 @@ import { exactPriceFigures, parsePolicy, roundPrice, grossForTargetMargin, type 
 import type { PreviewInput } from '../../src/shared/schemas/repricing';
 import { loadCostRows, loadMenuRows, type BuildLineRow, type DrinkSizeRow, type LineRow } from '../costing/cost-model.repo';
 import { buildLoadedCostModel, type LoadedCostModel } from '../costing/cost-model.service';
-import { today } from '../costing/shared';
+import { utcToday as today } from '../platform/clock';
 import { groupBy } from '../../src/shared/collections';
 import { invalidInput } from '../platform/errors';
 import { keepLadder } from './ladder';

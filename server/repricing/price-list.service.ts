@@ -5,7 +5,7 @@ import { dec } from '../../src/shared/decimal';
 import { writeMoney } from '../../src/shared/money';
 import { loadMenuRows } from '../costing/cost-model.repo';
 import { loadCostModel } from '../costing/cost-model.service';
-import { today } from '../costing/shared';
+import { utcToday as today } from '../platform/clock';
 import { groupBy } from '../../src/shared/collections';
 import { money } from '../platform/present';
 import { notFound } from '../platform/errors';

@@ -7,7 +7,7 @@ import { applyPrices } from './apply.service';
 import { previewImpact } from './impact.service';
 import { drinkPriceHistory, plannedChanges, priceList, priceListCsv } from './price-list.service';
 import { cancelScheduled, scheduledPrices } from './scheduled.service';
-import { today } from '../costing/shared';
+import { utcToday as today } from '../platform/clock';
 import { isoDate } from '../../src/shared/schemas/fields';
 import { z } from 'zod';
 

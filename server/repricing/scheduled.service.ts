@@ -1,6 +1,6 @@
 import type { Knex } from 'knex';
 import { loadMenuRows } from '../costing/cost-model.repo';
-import { today } from '../costing/shared';
+import { utcToday as today } from '../platform/clock';
 import { money } from '../platform/present';
 import { conflict, notFound } from '../platform/errors';
 import { presentPriceChange } from './price-list.service';

@@ -42,6 +42,12 @@ export async function deleteSupplier(db: Knex, businessId: string, id: string): 
   return db('suppliers').where({ business_id: businessId, id }).delete();
 }
 
+/** Does a live pack name this supplier? (An archived pack keeps its history without it.) */
 export async function supplierHasPacks(db: Knex, businessId: string, id: string): Promise<boolean> {
-  return Boolean(await db('packs').where({ business_id: businessId, supplier_id: id }).first('id'));
+  return Boolean(await db('packs').where({ business_id: businessId, supplier_id: id }).whereNull('archived_at').first('id'));
+}
+
+/** Has the supplier any purchase order (which names it for good)? */
+export async function supplierHasOrders(db: Knex, businessId: string, id: string): Promise<boolean> {
+  return Boolean(await db('purchase_orders').where({ business_id: businessId, supplier_id: id }).first('id'));
 }

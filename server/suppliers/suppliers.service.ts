@@ -3,7 +3,7 @@ import type { AppDeps } from '../platform/deps';
 import { conflict, notFound } from '../platform/errors';
 import { guardWrite } from '../platform/db-errors';
 import type { supplierDetailsSchema, Supplier } from '../../src/shared/contract/suppliers';
-import { currencyOf, deleteSupplier, findSupplier, insertSupplier, listSuppliers, supplierHasPacks, updateSupplier, type SupplierDetails } from './suppliers.repo';
+import { currencyOf, deleteSupplier, findSupplier, insertSupplier, listSuppliers, supplierHasOrders, supplierHasPacks, updateSupplier, type SupplierDetails } from './suppliers.repo';
 import { presentSupplier } from './suppliers.presenter';
 
 type DetailsIn = Partial<z.output<typeof supplierDetailsSchema>>;
@@ -45,5 +45,8 @@ export async function remove({ db }: AppDeps, businessId: string, id: string): P
   if (!(await findSupplier(db, businessId, id))) throw notFound('That supplier');
   // Packs would silently lose their supplier (ON DELETE SET NULL): ask first.
   if (await supplierHasPacks(db, businessId, id)) throw conflict('in_use', 'Packs are still bought from this supplier. Move or remove them first.');
-  await deleteSupplier(db, businessId, id);
+  // Its orders keep naming it (their supplier, its terms): the supplier stays with them.
+  if (await supplierHasOrders(db, businessId, id)) throw conflict('in_use', 'This supplier has purchase orders, which keep its name and terms, so it cannot be removed.');
+  // Archived packs that named it keep their history without it (ON DELETE SET NULL).
+  await guardWrite('That supplier', () => deleteSupplier(db, businessId, id));
 }

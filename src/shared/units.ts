@@ -73,6 +73,11 @@ export function baseUnitOf(unit: UnitCode): BaseUnit {
   return BASE_UNIT_OF[UNITS[unit].dimension];
 }
 
+/** A preparation's base unit follows its yield's unit (l → ml, kg → g); null for an unknown unit. */
+export function yieldBaseUnit(unit: string): BaseUnit | null {
+  return isUnitCode(unit) ? baseUnitOf(unit) : null;
+}
+
 export type ConversionProblem = 'unknown-unit' | 'no-density' | 'incompatible';
 
 /** Why a quantity could not be put in an item's base unit. */

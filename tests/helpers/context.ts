@@ -2,7 +2,7 @@ import { inject } from 'vitest';
 import type { Express } from 'express';
 import type { Knex } from 'knex';
 import { createApp } from '../../server/app';
-import { systemClock } from '../../server/platform/clock';
+import { systemClock, type Clock } from '../../server/platform/clock';
 import { loadConfig, type Config } from '../../server/platform/config';
 import { createDb } from '../../server/platform/db';
 import { createLogger } from '../../server/platform/logger';
@@ -17,8 +17,8 @@ export interface TestContext {
   close(): Promise<void>;
 }
 
-/** A real app on the throwaway database with its own fake mailbox on a free port. */
-export async function startTestApp(env: Record<string, string> = {}, databaseUrl = inject('databaseUrl')): Promise<TestContext> {
+/** A real app on the throwaway database with its own fake mailbox on a free port; `clock` pins "now" (fixedClock). */
+export async function startTestApp(env: Record<string, string> = {}, databaseUrl = inject('databaseUrl'), clock: Clock = systemClock): Promise<TestContext> {
   const db = createDb(databaseUrl);
   const mail = await startMailFake({ smtpPort: 0, httpPort: 0 });
   const config = loadConfig({
@@ -32,7 +32,7 @@ export async function startTestApp(env: Record<string, string> = {}, databaseUrl
     ...env,
   });
   const mailer = createMailer({ host: '127.0.0.1', port: config.SMTP_PORT, from: config.MAIL_FROM });
-  const app = createApp({ db, config, mailer, logger: createLogger('silent'), clock: systemClock });
+  const app = createApp({ db, config, mailer, logger: createLogger('silent'), clock });
   return {
     db,
     app,

@@ -4,7 +4,7 @@ import { ErrorState } from '../../components/ui/error-state';
 import { SkeletonRows } from '../../components/ui/skeleton';
 import { usePageTitle } from '../../lib/use-page-title';
 import { paths } from '../../lib/paths';
-import { useCard } from '../../features/costing/api/get-card';
+import { useCard } from '../../features/costing/api/queries';
 import { RecipeCardView } from '../../features/costing/components/recipe-cards';
 
 export function CardRoute() {

@@ -1,7 +1,7 @@
 import { ErrorState } from '../../components/ui/error-state';
 import { PageHeader } from '../../components/ui/page-header';
 import { SkeletonRows } from '../../components/ui/skeleton';
-import { useCards } from '../../features/costing/api/get-cards';
+import { useCards } from '../../features/costing/api/queries';
 import { CardList } from '../../features/costing/components/recipe-cards';
 
 /** The list of recipe cards; also what a barista's Home page shows. */

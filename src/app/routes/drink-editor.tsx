@@ -5,13 +5,9 @@ import { ErrorState } from '../../components/ui/error-state';
 import { PageHeader } from '../../components/ui/page-header';
 import { SkeletonRows } from '../../components/ui/skeleton';
 import { paths } from '../../lib/paths';
+import { can } from '../../shared/capabilities';
 import { useMe } from '../../features/auth/api/get-me';
-import { useDrink } from '../../features/costing/api/get-drink';
-import { useDrinks } from '../../features/costing/api/get-drinks';
-import { useIngredients } from '../../features/costing/api/get-ingredients';
-import { usePreparations } from '../../features/costing/api/get-preparations';
-import { usePricingPolicy } from '../../features/costing/api/get-pricing-policy';
-import { useSizes } from '../../features/costing/api/get-sizes';
+import { useDrink, useDrinks, useIngredients, usePreparations, usePricingPolicy, useSizes } from '../../features/costing/api/queries';
 import { DrinkEditor } from '../../features/costing/components/drink-editor';
 
 /** A new drink (/drinks/new) or an existing one (/drinks/:drinkId). */
@@ -24,7 +20,7 @@ export function DrinkEditorRoute() {
   const preparations = usePreparations();
   const pricing = usePricingPolicy();
   const drinks = useDrinks();
-  const canEdit = me.data?.user.role === 'owner' || me.data?.user.role === 'manager';
+  const canEdit = can(me.data?.user.role, 'costs.write');
   const title = drinkId ? (drink.data?.drink.name ?? 'Drink') : 'New drink';
   const header = (
     <PageHeader

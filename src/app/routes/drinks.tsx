@@ -5,7 +5,7 @@ import { PageHeader } from '../../components/ui/page-header';
 import { SkeletonRows } from '../../components/ui/skeleton';
 import { paths } from '../../lib/paths';
 import { useMe } from '../../features/auth/api/get-me';
-import { useDrinks } from '../../features/costing/api/get-drinks';
+import { useDrinks } from '../../features/costing/api/queries';
 import { DrinksTable } from '../../features/costing/components/drinks-table';
 
 export function DrinksRoute() {

@@ -5,9 +5,9 @@ import { PageHeader } from '../../components/ui/page-header';
 import { SkeletonRows } from '../../components/ui/skeleton';
 import { formatMoney } from '../../lib/format';
 import { paths } from '../../lib/paths';
+import { can } from '../../shared/capabilities';
 import { useMe } from '../../features/auth/api/get-me';
-import { useIngredient } from '../../features/costing/api/get-ingredient';
-import { useSuppliers } from '../../features/costing/api/get-suppliers';
+import { useIngredient, useSuppliers } from '../../features/costing/api/queries';
 import { IngredientForm } from '../../features/costing/components/ingredient-form';
 
 /** A new ingredient (/ingredients/new) or an existing one. */
@@ -17,7 +17,7 @@ export function IngredientRoute() {
   const suppliers = useSuppliers();
   const ingredient = useIngredient(ingredientId ?? '');
   const editing = Boolean(ingredientId);
-  const canEdit = me.data?.user.role === 'owner' || me.data?.user.role === 'manager';
+  const canEdit = can(me.data?.user.role, 'costs.write');
   const currency = me.data?.business.currency ?? 'GBP';
   const detail = ingredient.data?.ingredient;
   const header = (

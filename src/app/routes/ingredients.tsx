@@ -5,7 +5,7 @@ import { PageHeader } from '../../components/ui/page-header';
 import { SkeletonRows } from '../../components/ui/skeleton';
 import { paths } from '../../lib/paths';
 import { useMe } from '../../features/auth/api/get-me';
-import { useIngredients } from '../../features/costing/api/get-ingredients';
+import { useIngredients } from '../../features/costing/api/queries';
 import { IngredientsTable } from '../../features/costing/components/ingredients-table';
 
 export function IngredientsRoute() {

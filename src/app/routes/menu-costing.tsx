@@ -4,7 +4,7 @@ import { ErrorState } from '../../components/ui/error-state';
 import { PageHeader } from '../../components/ui/page-header';
 import { SkeletonRows } from '../../components/ui/skeleton';
 import { paths } from '../../lib/paths';
-import { useMenuCosting } from '../../features/costing/api/get-menu-costing';
+import { useMenuCosting } from '../../features/costing/api/queries';
 import { MenuCostingView } from '../../features/costing/components/menu-costing';
 
 export function MenuCostingRoute() {

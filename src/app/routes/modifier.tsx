@@ -5,12 +5,9 @@ import { ErrorState } from '../../components/ui/error-state';
 import { PageHeader } from '../../components/ui/page-header';
 import { SkeletonRows } from '../../components/ui/skeleton';
 import { paths } from '../../lib/paths';
+import { can } from '../../shared/capabilities';
 import { useMe } from '../../features/auth/api/get-me';
-import { useIngredients } from '../../features/costing/api/get-ingredients';
-import { useModifier } from '../../features/costing/api/get-modifier';
-import { usePreparations } from '../../features/costing/api/get-preparations';
-import { usePricingPolicy } from '../../features/costing/api/get-pricing-policy';
-import { useSizes } from '../../features/costing/api/get-sizes';
+import { useIngredients, useModifier, usePreparations, usePricingPolicy, useSizes } from '../../features/costing/api/queries';
 import { ModifierEditor } from '../../features/costing/components/modifier-editor';
 
 /** A new modifier (/modifiers/new) or an existing one (/modifiers/:modifierId). */
@@ -22,7 +19,7 @@ export function ModifierRoute() {
   const ingredients = useIngredients();
   const preparations = usePreparations();
   const pricing = usePricingPolicy();
-  const canEdit = me.data?.user.role === 'owner' || me.data?.user.role === 'manager';
+  const canEdit = can(me.data?.user.role, 'costs.write');
   const detail = modifier.data?.modifier;
   const header = (
     <PageHeader

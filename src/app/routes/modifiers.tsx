@@ -5,8 +5,7 @@ import { PageHeader } from '../../components/ui/page-header';
 import { SkeletonRows } from '../../components/ui/skeleton';
 import { paths } from '../../lib/paths';
 import { useMe } from '../../features/auth/api/get-me';
-import { useModifiers } from '../../features/costing/api/get-modifiers';
-import { useSizes } from '../../features/costing/api/get-sizes';
+import { useModifiers, useSizes } from '../../features/costing/api/queries';
 import { ModifiersTable } from '../../features/costing/components/modifiers-table';
 
 export function ModifiersRoute() {

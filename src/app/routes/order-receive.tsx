@@ -7,7 +7,7 @@ import { ErrorState } from '../../components/ui/error-state';
 import { PageHeader } from '../../components/ui/page-header';
 import { SkeletonRows } from '../../components/ui/skeleton';
 import { paths } from '../../lib/paths';
-import { costingKey } from '../../features/costing/api/keys';
+import { invalidateCosting } from '../../features/costing/api/keys';
 import { useOrder } from '../../features/orders/api/get-order';
 import { ReceiptSummary, ReceiveForm } from '../../features/orders/components/receive-form';
 import type { ReceiptResult } from '../../features/orders/api/types';
@@ -29,7 +29,7 @@ export function OrderReceiveRoute() {
       ) : !o ? (
         <SkeletonRows rows={5} label="Loading the order" />
       ) : receipt ? (
-        <ReceiptSummary order={o} result={receipt} onPriceSaved={() => queryClient.invalidateQueries({ queryKey: costingKey })} />
+        <ReceiptSummary order={o} result={receipt} onPriceSaved={() => invalidateCosting(queryClient)} />
       ) : !receivable ? (
         <EmptyState
           title="This order cannot be received now"

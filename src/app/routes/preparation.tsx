@@ -3,11 +3,9 @@ import { Button } from '../../components/ui/button';
 import { ErrorState } from '../../components/ui/error-state';
 import { PageHeader } from '../../components/ui/page-header';
 import { SkeletonRows } from '../../components/ui/skeleton';
+import { can } from '../../shared/capabilities';
 import { useMe } from '../../features/auth/api/get-me';
-import { useIngredients } from '../../features/costing/api/get-ingredients';
-import { usePreparation } from '../../features/costing/api/get-preparation';
-import { usePreparations } from '../../features/costing/api/get-preparations';
-import { usePricingPolicy } from '../../features/costing/api/get-pricing-policy';
+import { useIngredients, usePreparation, usePreparations, usePricingPolicy } from '../../features/costing/api/queries';
 import { PreparationEditor } from '../../features/costing/components/preparation-editor';
 
 /** A new preparation (/preparations/new) or an existing one. */
@@ -19,7 +17,7 @@ export function PreparationRoute() {
   const preparations = usePreparations();
   const pricing = usePricingPolicy();
   const editing = Boolean(preparationId);
-  const canEdit = me.data?.user.role === 'owner' || me.data?.user.role === 'manager';
+  const canEdit = can(me.data?.user.role, 'costs.write');
   const detail = preparation.data?.preparation;
   const header = (
     <PageHeader

@@ -5,7 +5,7 @@ import { PageHeader } from '../../components/ui/page-header';
 import { SkeletonRows } from '../../components/ui/skeleton';
 import { paths } from '../../lib/paths';
 import { useMe } from '../../features/auth/api/get-me';
-import { usePreparations } from '../../features/costing/api/get-preparations';
+import { usePreparations } from '../../features/costing/api/queries';
 import { PreparationsTable } from '../../features/costing/components/preparations-table';
 
 export function PreparationsRoute() {

@@ -2,9 +2,9 @@ import { CardSection } from '../../components/ui/card';
 import { ErrorState } from '../../components/ui/error-state';
 import { PageHeader } from '../../components/ui/page-header';
 import { SkeletonRows } from '../../components/ui/skeleton';
+import { can } from '../../shared/capabilities';
 import { useMe } from '../../features/auth/api/get-me';
-import { usePricingPolicy } from '../../features/costing/api/get-pricing-policy';
-import { useSizes } from '../../features/costing/api/get-sizes';
+import { usePricingPolicy, useSizes } from '../../features/costing/api/queries';
 import { CupSizesEditor } from '../../features/costing/components/cup-sizes-editor';
 import { PricingPolicyForm } from '../../features/costing/components/pricing-policy-form';
 
@@ -13,7 +13,7 @@ export function PricingRoute() {
   const me = useMe();
   const sizes = useSizes();
   const policy = usePricingPolicy();
-  const canEdit = me.data?.user.role === 'owner' || me.data?.user.role === 'manager';
+  const canEdit = can(me.data?.user.role, 'costs.write');
   return (
     <div className="flex max-w-5xl flex-col gap-8">
       <PageHeader title="Cup sizes and pricing" description="The cups you serve, and the margin, tax and rounding that suggested menu prices follow." />

@@ -10,7 +10,7 @@ import { localMonth } from '../../features/books/components/dates';
 import { ManualSales } from '../../features/books/components/manual-sales';
 import { ImportsList, SalesDaysTable } from '../../features/books/components/sales-lists';
 import { TillImport } from '../../features/books/components/till-import';
-import { useMenuCosting } from '../../features/costing/api/get-menu-costing';
+import { useMenuCosting } from '../../features/costing/api/queries';
 import { useWorkSite } from './work-site';
 
 export function TillSalesRoute() {

@@ -1,16 +1,17 @@
 import { z } from 'zod';
 import { ALLERGEN_CODES } from '../../shared/allergens';
 import { rules } from '../../shared/checks';
-import { decimalString, pricingPolicySchema } from '../../shared/schemas/costing';
+import { pricingPolicySchema } from '../../shared/schemas/costing';
+import { decimal, type DecimalColumn } from '../../shared/schemas/fields';
 import { BASE_UNITS, UNIT_CODES } from '../../shared/units';
-import { INGREDIENT_CATEGORIES } from './api/types';
+import { INGREDIENT_CATEGORIES } from '../../shared/categories';
 
-// The forms' rules, built from the shared decimal rules the server applies, so
-// a field is refused here with the same words the API would use.
+// The forms' rules, built from the field schemas the server applies (each decimal held to the
+// column it is stored in), so a field is refused here with the same words the API would use.
 
 const line = z.object({
   item: z.string().min(1, 'Choose an ingredient or preparation from the list.'),
-  quantity: decimalString(rules.positive),
+  quantity: decimal('quantity', rules.positive),
   unit: z.string().min(1, 'Choose a unit or measure.'),
 });
 export const linesSchema = z.array(line);
@@ -29,7 +30,7 @@ export const drinkFormSchema = z
     v.sizes.forEach((s, i) => {
       if (!s.offered) return;
       if (s.currentPrice.trim() !== '') {
-        const r = decimalString(rules.positive).safeParse(s.currentPrice.trim());
+        const r = decimal('money', rules.positive).safeParse(s.currentPrice.trim());
         if (!r.success) ctx.addIssue({ code: 'custom', path: ['sizes', i, 'currentPrice'], message: r.error.issues[0].message });
       }
       if (s.lines.length === 0) ctx.addIssue({ code: 'custom', path: ['sizes', i, 'lines'], message: `Add at least one line to the ${s.name} build.` });
@@ -41,17 +42,16 @@ export const drinkFormSchema = z
   });
 export type DrinkFormValues = z.input<typeof drinkFormSchema>;
 
-const optionalDecimal = (rule: Parameters<typeof decimalString>[0]) =>
-  z.union([z.literal(''), decimalString(rule)]);
+const optionalDecimal = (column: DecimalColumn, rule: Parameters<typeof decimal>[1]) => z.union([z.literal(''), decimal(column, rule)]);
 
 export const preparationFormSchema = z.object({
   name: z.string().trim().min(1, 'Name the preparation.').max(120),
-  yieldQuantity: decimalString(rules.positive),
+  yieldQuantity: decimal('quantity', rules.positive),
   yieldUnit: z.enum(UNIT_CODES, 'Choose the unit of the yield.'),
-  densityGPerMl: optionalDecimal(rules.positive),
+  densityGPerMl: optionalDecimal('density', rules.positive),
   method: z.string().max(5000),
   lines: linesSchema.min(1, 'A preparation needs at least one line.'),
-  measures: z.array(z.object({ id: z.string().optional(), name: z.string().trim().min(1, 'Name the measure.').max(120), quantity: decimalString(rules.positive), unit: z.enum(UNIT_CODES, 'Choose a unit.') })),
+  measures: z.array(z.object({ id: z.string().optional(), name: z.string().trim().min(1, 'Name the measure.').max(120), quantity: decimal('quantity', rules.positive), unit: z.enum(UNIT_CODES, 'Choose a unit.') })),
 });
 export type PreparationFormValues = z.input<typeof preparationFormSchema>;
 
@@ -59,8 +59,8 @@ export const ingredientFormSchema = z.object({
   name: z.string().trim().min(1, 'Name the ingredient.').max(120),
   category: z.enum(INGREDIENT_CATEGORIES, 'Choose a category.'),
   baseUnit: z.enum(BASE_UNITS, 'Choose how it is measured: g, ml or each.'),
-  densityGPerMl: optionalDecimal(rules.positive),
-  yieldPct: decimalString(rules.yieldPct),
+  densityGPerMl: optionalDecimal('density', rules.positive),
+  yieldPct: decimal('percent', rules.yieldPct),
   allergens: z.array(z.enum(ALLERGEN_CODES)),
   notes: z.string().max(2000),
   costingPack: z.string(),
@@ -70,20 +70,20 @@ export const ingredientFormSchema = z.object({
       supplierId: z.string(),
       description: z.string().trim().min(1, 'Describe the pack, e.g. "Case of 6 × 2 l".').max(200),
       supplierCode: z.string().max(60),
-      count: decimalString(rules.positive),
-      quantity: decimalString(rules.positive),
+      count: decimal('quantity', rules.positive),
+      quantity: decimal('quantity', rules.positive),
       unit: z.enum(UNIT_CODES, 'Choose a unit.'),
-      purchaseTaxPct: decimalString(rules.nonNegative),
-      price: decimalString(rules.nonNegative),
+      purchaseTaxPct: decimal('percent', rules.nonNegative),
+      price: decimal('money', rules.nonNegative),
     }),
   ),
-  measures: z.array(z.object({ id: z.string().optional(), name: z.string().trim().min(1, 'Name the measure, e.g. shot or pump.').max(120), quantity: decimalString(rules.positive), unit: z.enum(UNIT_CODES, 'Choose a unit.') })),
+  measures: z.array(z.object({ id: z.string().optional(), name: z.string().trim().min(1, 'Name the measure, e.g. shot or pump.').max(120), quantity: decimal('quantity', rules.positive), unit: z.enum(UNIT_CODES, 'Choose a unit.') })),
 });
 export type IngredientFormValues = z.input<typeof ingredientFormSchema>;
 
 export const sizeFormSchema = z.object({
   name: z.string().trim().min(1, 'Name the cup size.').max(60),
-  volumeMl: decimalString(rules.positive),
+  volumeMl: decimal('quantity', rules.positive),
 });
 
 export const policyFormSchema = z.object({
@@ -101,7 +101,7 @@ export const modifierFormSchema = z
   .object({
     name: z.string().trim().min(1, 'Name the modifier, e.g. Extra shot.').max(120),
     kind: z.enum(['add', 'swap'], { error: 'Choose an add-on or a swap.' }),
-    upcharge: optionalDecimal(rules.nonNegative),
+    upcharge: optionalDecimal('money', rules.nonNegative),
     sizes: z.array(z.object({ sizeId: z.string(), name: z.string(), volumeMl: z.string(), add: z.array(looseLine), remove: z.array(looseLine) })),
   })
   .superRefine((v, ctx) => {

@@ -7,10 +7,15 @@ import { isCurrencyCode } from '../money';
 import { readPolicy, ROUNDING_MODES, TAX_MODES } from '../pricing';
 import { BASE_UNITS, UNIT_CODES } from '../units';
 import { bracketPathToZod } from './field-errors';
+import { decimal, text } from './fields';
 
 export { formatFieldPath, zodFieldErrors } from './field-errors';
 
-/** A decimal string checked with one of the shared rules (the engine applies the same rules). */
+/**
+ * A decimal string checked with one of the shared rules (the engine applies the same rules),
+ * whatever its size. For a value that is or could be stored, use `decimal(column, rule)` of
+ * ./fields, which also keeps it within its column.
+ */
 export function decimalString(rule?: DecimalRule) {
   return z.string({ error: NOT_A_DECIMAL }).superRefine((value, ctx) => {
     const problem = decimalProblem(value, rule);
@@ -21,11 +26,13 @@ export function decimalString(rule?: DecimalRule) {
 const unitCode = z.enum(UNIT_CODES, { error: (issue) => `Unknown unit "${String(issue.input)}".` });
 const key = z.string({ error: 'Enter a key.' }).min(1, 'Enter a key.').max(100);
 
-export const measureSchema = z.object({ quantity: decimalString(rules.positive), unit: unitCode });
+// The preview stores nothing, but each figure is one the business could store: it is held to
+// the same column as the stored one, so what previews is what saves.
+export const measureSchema = z.object({ quantity: decimal('quantity', rules.positive), unit: unitCode });
 
 export const lineSchema = z.object({
   item: key,
-  quantity: decimalString(rules.positive),
+  quantity: decimal('quantity', rules.positive),
   /** A standard unit or one of the item's measures: only the engine can tell which. */
   unit: z.string({ error: 'Choose a unit or measure.' }).min(1, 'Choose a unit or measure.').max(60),
 });
@@ -35,13 +42,13 @@ const measures = z.record(z.string().min(1).max(60), measureSchema).nullish();
 export const ingredientSchema = z.object({
   key,
   baseUnit: z.enum(BASE_UNITS, { error: 'The base unit must be g, ml or each.' }),
-  densityGPerMl: decimalString(rules.positive).nullish(),
-  yieldPct: decimalString(rules.yieldPct).nullish(),
+  densityGPerMl: decimal('density', rules.positive).nullish(),
+  yieldPct: decimal('percent', rules.yieldPct).nullish(),
   pack: z.object({
-    count: decimalString(rules.positive).nullish(),
-    quantity: decimalString(rules.positive),
+    count: decimal('quantity', rules.positive).nullish(),
+    quantity: decimal('quantity', rules.positive),
     unit: unitCode,
-    price: decimalString(rules.nonNegative),
+    price: decimal('money', rules.nonNegative),
   }),
   measures,
   allergens: z
@@ -53,16 +60,16 @@ export const ingredientSchema = z.object({
 export const preparationSchema = z.object({
   key,
   yield: measureSchema,
-  densityGPerMl: decimalString(rules.positive).nullish(),
+  densityGPerMl: decimal('density', rules.positive).nullish(),
   measures,
   lines: z.array(lineSchema).min(1, 'A preparation needs at least one line.').max(200),
 });
 
 export const pricingPolicySchema = z.object({
-  targetMarginPct: decimalString(rules.marginPct),
+  targetMarginPct: decimal('percent', rules.marginPct),
   taxMode: z.enum(TAX_MODES, { error: 'Choose whether prices include tax (inclusive) or not (exclusive).' }),
-  taxRatePct: decimalString(rules.nonNegative),
-  priceStep: decimalString(rules.positive).nullish(),
+  taxRatePct: decimal('percent', rules.nonNegative),
+  priceStep: decimal('money', rules.positive).nullish(),
   rounding: z.enum(ROUNDING_MODES, { error: 'Choose rounding up, to the nearest step, or none.' }),
 });
 
@@ -71,8 +78,8 @@ export const currencySchema = z
   .refine(isCurrencyCode, 'Enter a three-letter ISO 4217 currency code such as GBP.');
 
 export const sizeSchema = z.object({
-  name: z.string({ error: 'Name the cup size.' }).trim().min(1, 'Name the cup size.').max(60),
-  currentPrice: decimalString(rules.positive).nullish(),
+  name: text({ what: 'cup size', min: 1, max: 60 }),
+  currentPrice: decimal('money', rules.positive).nullish(),
   lines: z.array(lineSchema).min(1, 'A cup size needs at least one line.').max(200),
 });
 

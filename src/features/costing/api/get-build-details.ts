@@ -1,8 +1,6 @@
 import { keepPreviousData, queryOptions, useQuery, useQueryClient, type QueryClient } from '@tanstack/react-query';
-import { getIngredient, ingredientQueryOptions } from './get-ingredient';
-import { getPreparation, preparationQueryOptions } from './get-preparation';
-import { costingKey } from './keys';
-import type { IngredientDetail, PreparationDetail } from './types';
+import { contractQueryOptions } from '../../../lib/contract';
+import { getIngredient, getPreparation, type IngredientDetail, type PreparationDetail } from '../../../shared/contract/costing';
 
 export interface BuildDetails {
   ingredients: Map<string, IngredientDetail>;
@@ -21,9 +19,7 @@ async function loadBuildDetails(queryClient: QueryClient, ingredientIds: readonl
   const wantIngredients = new Set(ingredientIds);
   let wave = [...new Set(preparationIds)];
   while (wave.length > 0) {
-    const loaded = await Promise.all(
-      wave.map((id) => queryClient.fetchQuery({ ...preparationQueryOptions(id), queryFn: () => getPreparation(id), staleTime: 30_000 })),
-    );
+    const loaded = await Promise.all(wave.map((id) => queryClient.fetchQuery({ ...contractQueryOptions(getPreparation, { params: { id } }), staleTime: 30_000 })));
     const next: string[] = [];
     for (const { preparation } of loaded) {
       preparations.set(preparation.id, preparation);
@@ -34,9 +30,7 @@ async function loadBuildDetails(queryClient: QueryClient, ingredientIds: readonl
     }
     wave = [...new Set(next)];
   }
-  const details = await Promise.all(
-    [...wantIngredients].map((id) => queryClient.fetchQuery({ ...ingredientQueryOptions(id), queryFn: () => getIngredient(id), staleTime: 30_000 })),
-  );
+  const details = await Promise.all([...wantIngredients].map((id) => queryClient.fetchQuery({ ...contractQueryOptions(getIngredient, { params: { id } }), staleTime: 30_000 })));
   for (const { ingredient } of details) ingredients.set(ingredient.id, ingredient);
   return { ingredients, preparations };
 }
@@ -45,7 +39,8 @@ export const buildDetailsQueryOptions = (queryClient: QueryClient, ingredientIds
   // The client is the cache the details are read through, not an input of the answer.
   // eslint-disable-next-line @tanstack/query/exhaustive-deps
   queryOptions({
-    queryKey: [...costingKey, 'build-details', [...ingredientIds].sort(), [...preparationIds].sort()] as const,
+    // Under /api/costing, so a costing write (keys.ts) refreshes it with the rest.
+    queryKey: ['/api/costing/build-details', [...ingredientIds].sort(), [...preparationIds].sort()] as const,
     queryFn: () => loadBuildDetails(queryClient, ingredientIds, preparationIds),
     placeholderData: keepPreviousData,
   });

@@ -1,17 +1,25 @@
-import { useMutation, useQueryClient } from '@tanstack/react-query';
+import type { QueryClient } from '@tanstack/react-query';
+import { invalidate } from '../../../lib/contract';
 
 /**
- * Every costing query key starts with this. A change to one ingredient, pack,
- * preparation, size or policy moves the cost of drinks, preparations, the menu
- * and their cards alike, so every costing write invalidates the whole family.
+ * The paths of every costing read. A change to one ingredient, pack, preparation, size or
+ * policy moves the cost of drinks, preparations, the menu and their cards alike, so every
+ * costing write refreshes them all.
  */
-export const costingKey = ['costing'] as const;
+export const COSTING_PATHS = [
+  '/api/sizes',
+  '/api/ingredients',
+  '/api/packs',
+  '/api/preparations',
+  '/api/drinks',
+  '/api/menu',
+  '/api/cards',
+  '/api/modifiers',
+  '/api/pricing-policy',
+  '/api/costing',
+] as const;
 
-/** A costing write that refreshes every costing query once it succeeds. */
-export function useCostingMutation<TIn, TOut>(mutationFn: (input: TIn) => Promise<TOut>) {
-  const queryClient = useQueryClient();
-  return useMutation({
-    mutationFn,
-    onSuccess: () => queryClient.invalidateQueries({ queryKey: costingKey }),
-  });
+/** Marks every costing read as stale (after a write elsewhere that moves a cost, such as a delivery's new price). */
+export function invalidateCosting(queryClient: QueryClient): Promise<void> {
+  return invalidate(queryClient, ...COSTING_PATHS);
 }

@@ -1,24 +1,21 @@
 import { keepPreviousData, queryOptions, useQuery } from '@tanstack/react-query';
-import type { CostPreviewRequest, CostPreviewResponse } from '../../../shared/costing';
-import { apiClient } from '../../../lib/api-client';
-import { paths } from '../../../lib/paths';
-import { costingKey } from './keys';
-
-/** Costs a build from the request alone; the server saves nothing. */
-export function previewCosting(request: CostPreviewRequest, signal?: AbortSignal): Promise<CostPreviewResponse> {
-  return apiClient.post(paths.api.costingPreview(), request, { signal });
-}
+import { call } from '../../../lib/contract';
+import type { BodyInOf } from '../../../shared/contract/endpoint';
+import { previewCosting } from '../../../shared/contract/costing';
+import type { CostPreviewRequest } from '../../../shared/costing';
 
 // The request is the key: the same build typed again is answered from the cache.
 export const previewQueryOptions = (request: CostPreviewRequest | null) =>
   queryOptions({
-    queryKey: [...costingKey, 'preview', request] as const,
-    queryFn: ({ signal }) => previewCosting(request!, signal),
+    queryKey: [previewCosting.path, request] as const,
+    // The engine's request type names units loosely (strings); the server checks each against the contract.
+    queryFn: ({ signal }) => call(previewCosting, { body: request as BodyInOf<typeof previewCosting> }, signal),
     enabled: request !== null,
     placeholderData: keepPreviousData,
     staleTime: 60_000,
   });
 
+/** Costs a build from the request alone; the server saves nothing. */
 export function usePreviewCosting(request: CostPreviewRequest | null) {
   return useQuery(previewQueryOptions(request));
 }

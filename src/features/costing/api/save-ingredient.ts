@@ -1,8 +1,25 @@
-import { ApiError, apiClient, isApiError } from '../../../lib/api-client';
-import { paths } from '../../../lib/paths';
+import { useMutation, useQueryClient } from '@tanstack/react-query';
+import { ApiError, isApiError } from '../../../lib/api-client';
+import { call } from '../../../lib/contract';
+import type { AllergenCode } from '../../../shared/allergens';
+import type { IngredientCategory } from '../../../shared/categories';
+import {
+  addIngredientMeasure,
+  addPack,
+  addPackPrice,
+  createIngredient as createIngredientEntry,
+  deleteMeasure,
+  deletePack,
+  updateIngredient as updateIngredientEntry,
+  updateMeasure,
+  updatePack,
+  type IngredientDetail,
+  type MeasureOut,
+  type Pack,
+} from '../../../shared/contract/costing';
 import { dec, isDecimalString } from '../../../shared/decimal';
-import { useCostingMutation } from './keys';
-import type { AllergenCode, BaseUnit, IngredientCategory, IngredientDetail, MeasureOut, Pack, UnitCode } from './types';
+import type { BaseUnit, UnitCode } from '../../../shared/units';
+import { invalidateCosting } from './keys';
 
 export interface PackValues {
   /** Set for a pack already saved. */
@@ -38,8 +55,6 @@ export interface IngredientValues {
   costingPackIndex: number | null;
 }
 
-type Body = { ingredient: IngredientDetail; allergenCaution: string };
-
 /** Runs one call and files its field errors under `prefix` (a pack's "unit" becomes "packs[1].unit"). */
 async function under<T>(prefix: string, call: () => Promise<T>): Promise<T> {
   try {
@@ -71,18 +86,18 @@ const ingredientFields = (v: IngredientValues) => ({
   notes: v.notes,
 });
 
-export function createIngredient(v: IngredientValues): Promise<Body> {
-  return apiClient.post<Body>(paths.api.ingredients(), {
-    ...ingredientFields(v),
-    packs: v.packs.map((p) => ({ ...packFields(p), price: p.price })),
-    measures: v.measures.map(({ name, quantity, unit }) => ({ name, quantity, unit })),
-  }).then(async (body) => {
-    // The server picks the most recently priced pack unless told otherwise.
-    if (v.costingPackIndex === null) return body;
-    const chosen = body.ingredient.packs[v.costingPackIndex];
-    if (!chosen) return body;
-    return apiClient.patch<Body>(paths.api.ingredient(body.ingredient.id), { costingPackId: chosen.id });
+export async function createIngredient(v: IngredientValues) {
+  const body = await call(createIngredientEntry, {
+    body: {
+      ...ingredientFields(v),
+      packs: v.packs.map((p) => ({ ...packFields(p), price: p.price })),
+      measures: v.measures.map(({ name, quantity, unit }) => ({ name, quantity, unit })),
+    },
   });
+  // The server picks the most recently priced pack unless told otherwise.
+  const chosen = v.costingPackIndex === null ? undefined : body.ingredient.packs[v.costingPackIndex];
+  if (!chosen) return body;
+  return call(updateIngredientEntry, { params: { id: body.ingredient.id }, body: { costingPackId: chosen.id } });
 }
 
 /** "1.50" and "1.5" are the same amount: compared as decimals, never as floats. */
@@ -112,41 +127,43 @@ function measureChanged(m: MeasureValues, old: MeasureOut): boolean {
  * was added, changed or removed, then the costing pack. A price change is a new
  * dated price (history is kept), never an overwrite.
  */
-export async function updateIngredient({ original, values: v }: { original: IngredientDetail; values: IngredientValues }): Promise<Body> {
+export async function updateIngredient({ original, values: v }: { original: IngredientDetail; values: IngredientValues }) {
   const id = original.id;
-  await apiClient.patch(paths.api.ingredient(id), ingredientFields(v));
+  await call(updateIngredientEntry, { params: { id }, body: ingredientFields(v) });
   const packIds: string[] = [];
   for (const [i, p] of v.packs.entries()) {
     const old = p.id ? original.packs.find((o) => o.id === p.id) : undefined;
     if (!old) {
-      const { pack } = await under(`packs[${i}]`, () => apiClient.post<{ pack: Pack }>(paths.api.ingredientPacks(id), { ...packFields(p), price: p.price }));
+      const { pack } = await under(`packs[${i}]`, () => call(addPack, { params: { id }, body: { ...packFields(p), price: p.price } }));
       packIds.push(pack.id);
       continue;
     }
     packIds.push(old.id);
-    if (packChanged(p, old)) await under(`packs[${i}]`, () => apiClient.patch(paths.api.pack(old.id), packFields(p)));
-    if (!sameDecimal(p.price, old.price)) await under(`packs[${i}]`, () => apiClient.post(paths.api.packPrices(old.id), { price: p.price }));
+    if (packChanged(p, old)) await under(`packs[${i}]`, () => call(updatePack, { params: { id: old.id }, body: packFields(p) }));
+    if (!sameDecimal(p.price, old.price)) await under(`packs[${i}]`, () => call(addPackPrice, { params: { id: old.id }, body: { price: p.price } }));
   }
+  // A pack an order or a count still names is archived by the server rather than deleted.
   const keptPacks = new Set(v.packs.map((p) => p.id).filter(Boolean));
-  for (const old of original.packs) if (!keptPacks.has(old.id)) await apiClient.delete(paths.api.pack(old.id));
+  for (const old of original.packs) if (!keptPacks.has(old.id)) await call(deletePack, { params: { id: old.id } });
 
   for (const [i, m] of v.measures.entries()) {
     const old = m.id ? original.measures.find((o) => o.id === m.id) : undefined;
     const body = { name: m.name, quantity: m.quantity, unit: m.unit };
-    if (!old) await under(`measures[${i}]`, () => apiClient.post(paths.api.ingredientMeasures(id), body));
-    else if (measureChanged(m, old)) await under(`measures[${i}]`, () => apiClient.patch(paths.api.measure(old.id), body));
+    if (!old) await under(`measures[${i}]`, () => call(addIngredientMeasure, { params: { id }, body }));
+    else if (measureChanged(m, old)) await under(`measures[${i}]`, () => call(updateMeasure, { params: { id: old.id }, body }));
   }
   const keptMeasures = new Set(v.measures.map((m) => m.id).filter(Boolean));
-  for (const old of original.measures) if (!keptMeasures.has(old.id)) await under('measures', () => apiClient.delete(paths.api.measure(old.id)));
+  for (const old of original.measures) if (!keptMeasures.has(old.id)) await under('measures', () => call(deleteMeasure, { params: { id: old.id } }));
 
   const costingPackId = v.costingPackIndex === null ? null : (packIds[v.costingPackIndex] ?? null);
-  return apiClient.patch<Body>(paths.api.ingredient(id), { costingPackId });
+  return call(updateIngredientEntry, { params: { id }, body: { costingPackId } });
 }
 
-export function deleteIngredient(id: string): Promise<void> {
-  return apiClient.delete(paths.api.ingredient(id));
+/** A save of several calls: a half-done one (details saved, a pack refused) still changed the lists. */
+function useIngredientSave<T>(save: (input: T) => Promise<{ ingredient: IngredientDetail; allergenCaution: string }>) {
+  const queryClient = useQueryClient();
+  return useMutation({ mutationFn: save, onSettled: () => invalidateCosting(queryClient) });
 }
 
-export const useCreateIngredient = () => useCostingMutation(createIngredient);
-export const useUpdateIngredient = () => useCostingMutation(updateIngredient);
-export const useDeleteIngredient = () => useCostingMutation(deleteIngredient);
+export const useCreateIngredient = () => useIngredientSave(createIngredient);
+export const useUpdateIngredient = () => useIngredientSave(updateIngredient);

@@ -13,8 +13,8 @@ import { useToast } from '../../../components/ui/toast';
 import { isApiError } from '../../../lib/api-client';
 import { formatQuantity } from '../../../lib/format';
 import { applyServerErrors } from '../../../lib/form-errors';
-import { useCreateSize, useDeleteSize, useUpdateSize } from '../api/save-size';
-import type { CupSize } from '../api/types';
+import { useCreateSize, useDeleteSize, useUpdateSize } from '../api/mutations';
+import type { CupSize } from '../../../shared/contract/costing';
 import { sizeFormSchema } from '../schemas';
 
 type Values = z.input<typeof sizeFormSchema>;
@@ -31,8 +31,8 @@ function SizeForm({ size, onDone, nextPosition }: { size?: CupSize; onDone?: () 
   const onSubmit = handleSubmit(async (v) => {
     setFormError(null);
     try {
-      if (size) await update.mutateAsync({ id: size.id, ...v });
-      else await create.mutateAsync({ ...v, position: nextPosition });
+      if (size) await update.mutateAsync({ params: { id: size.id }, body: v });
+      else await create.mutateAsync({ body: { ...v, position: nextPosition } });
       notify(`${v.name} saved.`);
       reset({ name: '', volumeMl: '' });
       onDone?.();
@@ -133,7 +133,7 @@ export function CupSizesEditor({ sizes, canEdit }: { sizes: CupSize[]; canEdit: 
         onConfirm={() => {
           if (!removing) return;
           const name = removing.name;
-          remove.mutate(removing.id, {
+          remove.mutate({ params: { id: removing.id } }, {
             onSuccess: () => {
               setRemoving(null);
               notify(`${name} removed.`);

@@ -14,8 +14,8 @@ import { paths } from '../../../lib/paths';
 import { ALLERGEN_CAUTION } from '../../../shared/allergens';
 import { useBuildDetails } from '../api/get-build-details';
 import { usePreviewCosting } from '../api/preview-costing';
-import { useCreateDrink, useReplaceDrink } from '../api/save-drink';
-import type { CupSize, Drink, DrinkIn, IngredientSummary, PreparationSummary, PricingPolicyBody } from '../api/types';
+import { useCreateDrink, useReplaceDrink } from '../api/mutations';
+import type { CupSize, Drink, DrinkIn, IngredientSummary, PreparationSummary, PricingPolicyBody } from '../../../shared/contract/costing';
 import { bracketToDots, drinkFormSchema, type DrinkFormValues } from '../schemas';
 import { AllergenSummary } from './allergens';
 import { LinesEditor, type FormLine, type LineErrors } from './lines-editor';
@@ -114,7 +114,7 @@ export function DrinkEditor({ drink, sizes, ingredients, preparations, pricing, 
     const body = toDrinkIn(values);
     const offeredIndex = values.sizes.map((s, i) => (s.offered ? i : -1)).filter((i) => i >= 0);
     try {
-      const saved = drink ? await replace.mutateAsync({ id: drink.id, ...body }) : await create.mutateAsync(body);
+      const saved = drink ? await replace.mutateAsync({ params: { id: drink.id }, body }) : await create.mutateAsync({ body });
       notify(`${saved.drink.name} saved.`);
       if (!drink) navigate(paths.drink.href(saved.drink.id), { replace: true });
       else reset(initialValues(sizes, saved.drink));

@@ -6,7 +6,7 @@ import { Input } from '../../../components/ui/input';
 import { SortHeader, Table, Td, THead, useSortedRows } from '../../../components/ui/table';
 import { formatMoney } from '../../../lib/format';
 import { paths } from '../../../lib/paths';
-import type { DrinkSummary } from '../api/types';
+import type { DrinkSummary } from '../../../shared/contract/costing';
 
 type SortKey = 'name' | 'category' | 'temperature';
 

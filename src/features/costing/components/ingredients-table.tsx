@@ -8,7 +8,8 @@ import { SortHeader, Table, Td, THead, useSortedRows, type SortValue } from '../
 import { formatMoney, formatQuantity } from '../../../lib/format';
 import { paths } from '../../../lib/paths';
 import { ALLERGENS } from '../../../shared/allergens';
-import { categoryLabels, type IngredientSummary } from '../api/types';
+import { categoryLabels } from './options';
+import type { IngredientSummary } from '../../../shared/contract/costing';
 import { CategoryOptions } from './options';
 import { unitSymbol } from './units';
 

@@ -3,7 +3,8 @@ import { Controller, useFieldArray, useWatch, type Control, type FieldValues, ty
 import { Button } from '../../../components/ui/button';
 import { Input, Select } from '../../../components/ui/input';
 import { formatMoney, formatQuantity } from '../../../lib/format';
-import type { BaseUnit, MeasureOut } from '../api/types';
+import type { BaseUnit } from '../../../shared/units';
+import type { MeasureOut } from '../../../shared/contract/costing';
 import { ItemPicker, type ItemChoice } from './item-picker';
 import { unitsFor, unitSymbol } from './units';
 

@@ -9,7 +9,7 @@ import { SortHeader, Table, Td, THead, useSortedRows, type SortValue } from '../
 import { formatDate, formatMoney } from '../../../lib/format';
 import { paths } from '../../../lib/paths';
 import { dec } from '../../../shared/decimal';
-import type { MenuCosting } from '../api/types';
+import type { MenuCosting } from '../../../shared/contract/costing';
 import { formatPct } from './size-figures';
 
 interface Row {

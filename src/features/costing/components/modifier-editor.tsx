@@ -16,8 +16,8 @@ import { ALLERGEN_CAUTION } from '../../../shared/allergens';
 import { isDecimalString } from '../../../shared/decimal';
 import { useBuildDetails } from '../api/get-build-details';
 import { usePreviewCosting } from '../api/preview-costing';
-import { useCreateModifier, useDeleteModifier, useReplaceModifier } from '../api/save-modifier';
-import type { CupSize, IngredientSummary, Modifier, ModifierIn, PreparationSummary, PricingPolicyBody } from '../api/types';
+import { useCreateModifier, useDeleteModifier, useReplaceModifier } from '../api/mutations';
+import type { CupSize, IngredientSummary, Modifier, ModifierIn, PreparationSummary, PricingPolicyBody } from '../../../shared/contract/costing';
 import { bracketToDots, modifierFormSchema, type ModifierFormValues } from '../schemas';
 import { AllergenSummary } from './allergens';
 import { LinesEditor, type LineErrors } from './lines-editor';
@@ -126,7 +126,7 @@ export function ModifierEditor({ modifier, sizes, ingredients, preparations, pri
     setFormError(null);
     const { body, origins } = toModifierIn(values);
     try {
-      const out = modifier ? await replace.mutateAsync({ id: modifier.id, ...body }) : await create.mutateAsync(body);
+      const out = modifier ? await replace.mutateAsync({ params: { id: modifier.id }, body }) : await create.mutateAsync({ body });
       notify(`${out.modifier.name} saved.`);
       if (!modifier) navigate(paths.modifier.href(out.modifier.id), { replace: true });
       else reset(initialValues(sizes, out.modifier));
@@ -156,7 +156,7 @@ export function ModifierEditor({ modifier, sizes, ingredients, preparations, pri
   const onDelete = async () => {
     if (!modifier) return;
     try {
-      await remove.mutateAsync(modifier.id);
+      await remove.mutateAsync({ params: { id: modifier.id } });
       notify(`${modifier.name} deleted.`);
       navigate(paths.modifiers.href(), { replace: true });
     } catch {

@@ -6,7 +6,7 @@ import { Input } from '../../../components/ui/input';
 import { SortHeader, Table, Td, Th, THead, useSortedRows } from '../../../components/ui/table';
 import { formatMoney } from '../../../lib/format';
 import { paths } from '../../../lib/paths';
-import type { CupSize, Modifier } from '../api/types';
+import type { CupSize, Modifier } from '../../../shared/contract/costing';
 import { UpchargeMark } from './upcharge-mark';
 
 type SortKey = 'name' | 'kind' | 'upcharge';

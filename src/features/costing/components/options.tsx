@@ -1,6 +1,19 @@
 import type { UnitCode } from '../../../shared/units';
-import { categoryLabels, INGREDIENT_CATEGORIES } from '../api/types';
+import { INGREDIENT_CATEGORIES, type IngredientCategory } from '../../../shared/categories';
 import { unitSymbol } from './units';
+
+/** The ingredient categories by their plain names. */
+export const categoryLabels: Record<IngredientCategory, string> = {
+  coffee: 'Coffee',
+  dairy: 'Dairy',
+  'plant-milk': 'Plant milk',
+  'syrup-sauce': 'Syrup and sauce',
+  powder: 'Powder',
+  tea: 'Tea',
+  extras: 'Bakery-side extras',
+  packaging: 'Packaging',
+  other: 'Other',
+};
 
 /** <option>s of the ingredient categories, by their plain names. */
 export function CategoryOptions() {

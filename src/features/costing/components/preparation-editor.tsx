@@ -16,8 +16,8 @@ import type { PreparationInput } from '../../../shared/costing';
 import { UNIT_CODES, baseUnitOf, type UnitCode } from '../../../shared/units';
 import { useBuildDetails } from '../api/get-build-details';
 import { usePreviewCosting } from '../api/preview-costing';
-import { useCreatePreparation, useReplacePreparation } from '../api/save-preparation';
-import type { IngredientSummary, PreparationDetail, PreparationSummary, PricingPolicyBody } from '../api/types';
+import { useCreatePreparation, useReplacePreparation } from '../api/mutations';
+import type { IngredientSummary, PreparationDetail, PreparationSummary, PricingPolicyBody } from '../../../shared/contract/costing';
 import { bracketToDots, preparationFormSchema, type PreparationFormValues } from '../schemas';
 import { AllergenSummary } from './allergens';
 import { LinesEditor, type LineErrors } from './lines-editor';
@@ -114,7 +114,7 @@ export function PreparationEditor({ preparation, ingredients, preparations, pric
       measures: v.measures.map(({ name, quantity, unit }) => ({ name, quantity, unit: unit as UnitCode })),
     };
     try {
-      const saved = preparation ? await replace.mutateAsync({ id: preparation.id, ...body }) : await create.mutateAsync(body);
+      const saved = preparation ? await replace.mutateAsync({ params: { id: preparation.id }, body }) : await create.mutateAsync({ body });
       notify(`${saved.preparation.name} saved.`);
       if (!preparation) navigate(paths.preparation.href(saved.preparation.id), { replace: true });
       else reset(initial(saved.preparation));

@@ -7,7 +7,7 @@ import { matchesSearch } from '../../../components/ui/table-rows';
 import { formatMoney, formatQuantity } from '../../../lib/format';
 import { paths } from '../../../lib/paths';
 import { ALLERGENS } from '../../../shared/allergens';
-import type { PreparationSummary } from '../api/types';
+import type { PreparationSummary } from '../../../shared/contract/costing';
 import { unitSymbol } from './units';
 
 type SortKey = 'name' | 'batchCost' | 'unitCost' | 'allergens';

@@ -1,7 +1,8 @@
 import type { CostPreviewRequest, IngredientInput, LineInput, PreparationInput } from '../../../shared/costing';
 import { dec, isDecimalString } from '../../../shared/decimal';
 import type { BuildDetails } from '../api/get-build-details';
-import type { IngredientDetail, IngredientSummary, LineIn, PreparationDetail, PreparationSummary, PricingPolicy } from '../api/types';
+import type { IngredientDetail, IngredientSummary, LineIn, PreparationDetail, PreparationSummary } from '../../../shared/contract/costing';
+import type { PricingPolicy } from '../../../shared/pricing';
 import type { FormLine, LineItem } from './lines-editor';
 
 /** The item keys the lines name, split into ingredient and preparation ids. */

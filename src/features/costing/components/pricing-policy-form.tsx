@@ -7,8 +7,8 @@ import { FormMessage } from '../../../components/ui/form-message';
 import { Input, Select } from '../../../components/ui/input';
 import { useToast } from '../../../components/ui/toast';
 import { isApiError } from '../../../lib/api-client';
-import { useSavePricingPolicy } from '../api/save-pricing-policy';
-import type { PricingPolicyBody } from '../api/types';
+import { useSavePricingPolicy } from '../api/mutations';
+import type { PricingPolicyBody } from '../../../shared/contract/costing';
 import { bracketToDots, policyFormSchema, type PolicyFormValues } from '../schemas';
 
 type Prefix = 'policy' | `overrides.${number}`;
@@ -59,8 +59,10 @@ export function PricingPolicyForm({ data, canEdit }: { data: PricingPolicyBody; 
     const step = (s: string) => (s.trim() === '' ? null : s.trim());
     try {
       const saved = await save.mutateAsync({
-        policy: { ...v.policy, priceStep: step(v.policy.priceStep) },
-        overrides: v.overrides.map((o) => ({ ...o, priceStep: step(o.priceStep) })),
+        body: {
+          policy: { ...v.policy, priceStep: step(v.policy.priceStep) },
+          overrides: v.overrides.map((o) => ({ ...o, priceStep: step(o.priceStep) })),
+        },
       });
       reset(toForm(saved));
       notify('Pricing policy saved. Suggested prices now follow it.');

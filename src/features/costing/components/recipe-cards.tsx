@@ -4,7 +4,7 @@ import { cx, focusRing } from '../../../components/ui/cx';
 import { formatQuantity } from '../../../lib/format';
 import { paths } from '../../../lib/paths';
 import { ALLERGENS } from '../../../shared/allergens';
-import type { CardSummary, RecipeCard } from '../api/types';
+import type { CardSummary, RecipeCard } from '../../../shared/contract/costing';
 import { AllergenSummary } from './allergens';
 
 /** The drinks a barista can open, grouped by category, big enough to tap on a phone. */

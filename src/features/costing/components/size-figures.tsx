@@ -2,7 +2,7 @@ import type { ReactNode } from 'react';
 import { StatusMark } from '../../../components/ui/status-mark';
 import { formatMoney } from '../../../lib/format';
 import { dec } from '../../../shared/decimal';
-import type { PriceFigures } from '../api/types';
+import type { PriceFigures } from '../../../shared/pricing';
 
 /** "72.06 %" from a percentage written to 2 places. */
 export function formatPct(pct: string | null): string {
